@@ -1,0 +1,62 @@
+import express, { Router } from 'express';
+import helmet from 'helmet';
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import { errorHandler } from './middleware/error-handler';
+import { originCheck } from './middleware/origin-check';
+import { notFound } from './errors';
+import { sessionMiddleware } from './modules/auth/session.middleware';
+import { authRouter } from './modules/auth/auth.router';
+import { usersRouter } from './modules/users/users.router';
+import { adminRouter } from './modules/admin/admin.router';
+import { healthRouter } from './modules/health.router';
+
+/** Every API router, in one list: the access-matrix test walks these. */
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter];
+
+const WEBHOOK_PATHS: string[] = [];
+
+/** Builds the app without listening: tests import this. */
+export function createApp(options: { clientDir?: string } = {}) {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          workerSrc: ["'self'", 'blob:'],
+          childSrc: ["'self'", 'blob:'],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  const api = Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(originCheck(WEBHOOK_PATHS));
+  api.use(sessionMiddleware);
+  for (const router of apiRouters) api.use(router);
+  api.use((req, _res, next) => next(notFound(`The API route ${req.method} ${req.path}`)));
+  api.use(errorHandler);
+  app.use('/api', api);
+
+  const clientDir = options.clientDir ?? path.resolve('dist/client');
+  if (existsSync(clientDir)) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.use('/assets', express.static(path.join(clientDir, 'assets'), { immutable: true, maxAge: '1y' }));
+    // Deep links such as /assignments/1 load the app; the client router takes it from there.
+    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

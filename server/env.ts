@@ -1,0 +1,30 @@
+import { z } from 'zod';
+
+/** Configuration, parsed once at start-up. A missing or malformed value stops the process with a
+ * message naming it. Every variable and its default is listed in README.md. */
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  DATABASE_URL: z.string().url().default('postgres://postgres@127.0.0.1:54329/compline'),
+  APP_ORIGIN: z.string().url().optional(),
+  DATA_DIR: z.string().default('.data'),
+  SMTP_URL: z.string().url().optional(),
+  MAIL_FROM: z.string().default('Compline <no-reply@compline.invalid>'),
+  MAP_STYLE_URL: z.string().url().optional(),
+  SESSION_DAYS: z.coerce.number().int().min(1).max(90).default(14),
+  SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
+});
+
+export type Env = z.infer<typeof envSchema>;
+
+function parseEnv(): Env {
+  const parsed = envSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    console.error(`Compline cannot start: bad configuration\n${lines.join('\n')}`);
+    process.exit(1);
+  }
+  return parsed.data;
+}
+
+export const env = parseEnv();

@@ -1,0 +1,59 @@
+import type { AddressInfo } from 'node:net';
+import { env } from './env';
+import { db, pool } from '../db/client';
+import { applyMigrations } from '../db/migrate';
+import { createApp } from './app';
+import { startFakeSmtpServer } from './integrations/mail/fake-smtp-server';
+import { smtpTransport } from './integrations/mail/transport';
+import { dispatchPending, setMailTransport, startMailDispatcher } from './integrations/mail/outbox';
+
+async function main() {
+  await applyMigrations(db);
+
+  let smtpUrl = env.SMTP_URL;
+  let closeFakeSmtp: (() => Promise<void>) | undefined;
+  if (!smtpUrl) {
+    const fake = await startFakeSmtpServer();
+    smtpUrl = fake.url;
+    closeFakeSmtp = fake.close;
+    console.log(`Compline: no SMTP_URL set, e-mail goes to the in-process fake SMTP server (${smtpUrl}); read it on the Outbox page.`);
+  }
+  const transport = smtpTransport(smtpUrl, env.MAIL_FROM);
+  setMailTransport(transport);
+  const stopDispatcher = startMailDispatcher();
+  void dispatchPending().catch(() => undefined);
+
+  let shuttingDown = false;
+  const app = createApp();
+  const server = app.listen(env.PORT, '0.0.0.0', () => {
+    const { port } = server.address() as AddressInfo;
+    console.log(`Compline is listening on http://127.0.0.1:${port}`);
+  });
+  // While shutting down, requests on kept-alive connections are told to go elsewhere.
+  server.on('request', (_req, res) => {
+    if (shuttingDown) res.setHeader('Connection', 'close');
+  });
+
+  const shutdown = (signal: string) => {
+    if (shuttingDown) return;
+    shuttingDown = true;
+    console.log(`Compline: ${signal} received, finishing requests in flight…`);
+    stopDispatcher();
+    server.close(async () => {
+      transport.close();
+      await closeFakeSmtp?.();
+      await pool.end();
+      console.log('Compline: stopped.');
+      process.exit(0);
+    });
+    server.closeIdleConnections();
+    setTimeout(() => process.exit(1), 15_000).unref();
+  };
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+  process.on('SIGINT', () => shutdown('SIGINT'));
+}
+
+main().catch((err) => {
+  console.error('Compline failed to start:', err);
+  process.exit(1);
+});
