@@ -25,9 +25,12 @@ export TEST_PGDATA="$PGDATA_DIR" TEST_PGPORT TEST_PGBIN="$PGBIN" DATA_DIR="$TEST
 export NODE_ENV=test
 mkdir -p "$ROOT/test-output"
 
-say "type-checking…"
-npx tsc --noEmit -p tsconfig.json
-say "building the client for the browser tests…"
-npx vite build --logLevel warn
+# TEST_QUICK=1 (for a developer re-running a few files) skips the type-check and the client build.
+if [ -z "${TEST_QUICK:-}" ]; then
+  say "type-checking…"
+  npx tsc --noEmit -p tsconfig.json
+  say "building the client for the browser tests…"
+  npx vite build --logLevel warn
+fi
 say "running the tests…"
 npx vitest run "$@"
