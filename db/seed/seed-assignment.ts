@@ -1,0 +1,65 @@
+import { and, eq } from 'drizzle-orm';
+import type { Db } from '../client';
+import { assignments, sales, subjects } from '../schema/assignments';
+import { organisations, users } from '../schema/organisations';
+import { DEMO_FIRM, DEMO_LENDER, demoUsers } from './demo-accounts';
+import { generatePortEllery } from './port-ellery';
+
+export const DEMO_SUBJECT_ADDRESS = '14 Lantern Lane';
+
+/** The demo assignment for 14 Lantern Lane with the generated Port Ellery market sales. Created once;
+ * a later run finds it by firm and subject address and leaves it (and users' changes) alone. */
+export async function seedDemoAssignment(db: Db): Promise<void> {
+  const scenario = generatePortEllery();
+  await db.transaction(async (tx) => {
+    const [firm] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_FIRM));
+    const [lender] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_LENDER));
+    const appraiserEmail = demoUsers.find((u) => u.role === 'appraiser')!.email;
+    const [appraiser] = await tx.select().from(users).where(eq(users.email, appraiserEmail));
+    const [existing] = await tx
+      .select({ id: assignments.id })
+      .from(assignments)
+      .where(and(eq(assignments.firmOrganisationId, firm.id), eq(assignments.subjectAddress, DEMO_SUBJECT_ADDRESS)));
+    if (existing) return;
+    const [assignment] = await tx
+      .insert(assignments)
+      .values({
+        firmOrganisationId: firm.id,
+        clientOrganisationId: lender.id,
+        appraiserUserId: appraiser.id,
+        subjectAddress: DEMO_SUBJECT_ADDRESS,
+        intendedUse: 'Mortgage lending decision for a purchase loan (first lien)',
+        loanReference: 'HM-2026-0419',
+        effectiveDate: scenario.effectiveDate,
+        dueDate: '2026-12-10',
+        areaUnit: 'sqft',
+        currency: scenario.currency,
+      })
+      .returning({ id: assignments.id });
+    const neighbourhoodName = (slug: string) => scenario.neighbourhoods.find((n) => n.slug === slug)!.name;
+    const { subject } = scenario;
+    await tx.insert(subjects).values({
+      assignmentId: assignment.id,
+      lon: subject.lon,
+      lat: subject.lat,
+      neighbourhood: neighbourhoodName(subject.neighbourhood),
+      floorArea: subject.floorArea,
+      lotSize: subject.lotSize,
+      bedrooms: subject.bedrooms,
+      bathrooms: subject.bathrooms,
+      yearBuilt: subject.yearBuilt,
+      condition: subject.condition,
+      quality: subject.quality,
+      garageSpaces: subject.garageSpaces,
+      notes: 'Single-storey house on a quiet lane; inspected 2026-11-12.',
+    });
+    await tx.insert(sales).values(
+      scenario.sales.map(({ key: _key, neighbourhood, saleType, ...sale }) => ({
+        ...sale,
+        assignmentId: assignment.id,
+        neighbourhood: neighbourhoodName(neighbourhood),
+        saleType: saleType.replace('-', '_') as 'arms_length',
+      })),
+    );
+  });
+}
