@@ -5,8 +5,9 @@ import * as organisations from './schema/organisations';
 import * as auth from './schema/auth';
 import * as audit from './schema/audit';
 import * as mail from './schema/mail';
+import * as assignments from './schema/assignments';
 
-export const schema = { ...organisations, ...auth, ...audit, ...mail };
+export const schema = { ...organisations, ...auth, ...audit, ...mail, ...assignments };
 
 export const pool = new pg.Pool({
   connectionString: env.DATABASE_URL,

@@ -10,9 +10,13 @@ import { authRouter } from './modules/auth/auth.router';
 import { usersRouter } from './modules/users/users.router';
 import { adminRouter } from './modules/admin/admin.router';
 import { healthRouter } from './modules/health.router';
+import { assignmentsRouter } from './modules/assignments/assignments.router';
+import { salesRouter } from './modules/sales/sales.router';
+import { salesImportRouter } from './modules/sales-import/sales-import.router';
+import { photosRouter } from './modules/photos/photos.router';
 
 /** Every API router, in one list: the access-matrix test walks these. */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter];
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter];
 
 const WEBHOOK_PATHS: string[] = [];
 

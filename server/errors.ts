@@ -6,6 +6,8 @@ export class AppError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: Record<string, string>,
+    /** Extra structured facts for the client (e.g. the row problems of a refused import). */
+    readonly details?: Record<string, unknown>,
   ) {
     super(message);
   }
@@ -19,8 +21,8 @@ export const notFound = (what = 'That record') => new AppError(404, 'not_found',
 export const conflict = (message: string, code = 'conflict') => new AppError(409, code, message);
 export const staleVersion = (what: string) =>
   new AppError(409, 'stale_version', `${what} was changed by someone else since you opened it. Reload to see their change; your edit was not saved.`);
-export const unprocessable = (message: string, fields?: Record<string, string>) =>
-  new AppError(422, 'unprocessable', message, fields);
+export const unprocessable = (message: string, fields?: Record<string, string>, details?: Record<string, unknown>) =>
+  new AppError(422, 'unprocessable', message, fields, details);
 export const tooManyRequests = (message: string) => new AppError(429, 'too_many_requests', message);
 export const unsupportedMedia = (message: string) => new AppError(415, 'unsupported_media_type', message);
 export const payloadTooLarge = (message: string) => new AppError(413, 'payload_too_large', message);

@@ -32,15 +32,15 @@ const MULTER_MESSAGES: Partial<Record<MulterError['code'], [number, string]>> = 
  * no stack trace ever reaches the client. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
-  const send = (status: number, code: string, message: string, fields?: Record<string, string>) =>
-    res.status(status).json({ error: fields ? { code, message, fields } : { code, message } });
+  const send = (status: number, code: string, message: string, fields?: Record<string, string>, details?: Record<string, unknown>) =>
+    res.status(status).json({ error: { code, message, ...(fields && { fields }), ...(details && { details }) } });
 
   if (err instanceof ZodError) {
     const fields = zodFields(err);
     const first = Object.entries(fields)[0];
     return send(400, 'validation_failed', first ? `Check ${first[0] === '_' ? 'the request' : first[0]}: ${first[1]}` : 'The request is not valid.', fields);
   }
-  if (err instanceof AppError) return send(err.status, err.code, err.message, err.fields);
+  if (err instanceof AppError) return send(err.status, err.code, err.message, err.fields, err.details);
   if (err instanceof MulterError) {
     const [status, message] = MULTER_MESSAGES[err.code] ?? [400, 'The upload was refused.'];
     return send(status, err.code.toLowerCase(), message);
