@@ -14,9 +14,10 @@ import { assignmentsRouter } from './modules/assignments/assignments.router';
 import { salesRouter } from './modules/sales/sales.router';
 import { salesImportRouter } from './modules/sales-import/sales-import.router';
 import { photosRouter } from './modules/photos/photos.router';
+import { analysisRouter } from './modules/analysis/analysis.router';
 
 /** Every API router, in one list: the access-matrix test walks these. */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter];
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter];
 
 const WEBHOOK_PATHS: string[] = [];
 

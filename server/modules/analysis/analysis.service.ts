@@ -1,0 +1,37 @@
+import { db } from '../../../db/client';
+import type { SessionUser } from '../../contracts/auth';
+import type { Analysis } from '../../contracts/analysis';
+import { analyseMarket } from '../../analysis/market-analysis';
+import { loadAssignmentFor } from '../assignments/assignment-access';
+import { findSubject } from '../assignments/assignments.repo';
+import { listSales } from '../sales/sales.repo';
+import { AnalysisCache } from './analysis-cache';
+
+export const analysisCache = new AnalysisCache();
+
+type AssignmentRow = Awaited<ReturnType<typeof loadAssignmentFor>>;
+
+/** Computes the analysis of an assignment from the database (no cache). */
+export async function computeAnalysis(assignment: AssignmentRow): Promise<Analysis> {
+  const [subject, sales] = await Promise.all([findSubject(db, assignment.id), listSales(db, assignment.id)]);
+  return analyseMarket({
+    assignmentId: assignment.id,
+    dataRevision: assignment.dataRevision,
+    areaUnit: assignment.areaUnit,
+    currency: assignment.currency,
+    effectiveDate: assignment.effectiveDate,
+    timeAdjustment: assignment.timeAdjustment,
+    subject: { floorArea: subject?.floorArea ?? null, neighbourhood: subject?.neighbourhood ?? null },
+    sales,
+  });
+}
+
+/** The analysis as JSON text, from the cache when the assignment's data has not changed. */
+export async function analysisJson(user: SessionUser, assignmentId: number): Promise<string> {
+  const assignment = await loadAssignmentFor(db, user, assignmentId);
+  const cached = analysisCache.get(assignment.id, assignment.dataRevision);
+  if (cached !== undefined) return cached;
+  const json = JSON.stringify(await computeAnalysis(assignment));
+  analysisCache.set(assignment.id, assignment.dataRevision, json);
+  return json;
+}
