@@ -6,8 +6,9 @@ import * as auth from './schema/auth';
 import * as audit from './schema/audit';
 import * as mail from './schema/mail';
 import * as assignments from './schema/assignments';
+import * as review from './schema/review';
 
-export const schema = { ...organisations, ...auth, ...audit, ...mail, ...assignments };
+export const schema = { ...organisations, ...auth, ...audit, ...mail, ...assignments, ...review };
 
 export const pool = new pg.Pool({
   connectionString: env.DATABASE_URL,

@@ -15,9 +15,10 @@ import { salesRouter } from './modules/sales/sales.router';
 import { salesImportRouter } from './modules/sales-import/sales-import.router';
 import { photosRouter } from './modules/photos/photos.router';
 import { analysisRouter } from './modules/analysis/analysis.router';
+import { gridRouter } from './modules/grid/grid.router';
 
 /** Every API router, in one list: the access-matrix test walks these. */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter];
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter];
 
 const WEBHOOK_PATHS: string[] = [];
 

@@ -7,7 +7,7 @@ import { findSubject } from '../assignments/assignments.repo';
 import { listSales } from '../sales/sales.repo';
 import { AnalysisCache } from './analysis-cache';
 
-export const analysisCache = new AnalysisCache();
+export const analysisCache = new AnalysisCache<{ analysis: Analysis; json: string }>();
 
 type AssignmentRow = Awaited<ReturnType<typeof loadAssignmentFor>>;
 
@@ -26,12 +26,16 @@ export async function computeAnalysis(assignment: AssignmentRow): Promise<Analys
   });
 }
 
-/** The analysis as JSON text, from the cache when the assignment's data has not changed. */
-export async function analysisJson(user: SessionUser, assignmentId: number): Promise<string> {
-  const assignment = await loadAssignmentFor(db, user, assignmentId);
+/** The analysis and its JSON text, from the cache while the assignment's data has not changed. */
+export async function cachedAnalysis(assignment: AssignmentRow): Promise<{ analysis: Analysis; json: string }> {
   const cached = analysisCache.get(assignment.id, assignment.dataRevision);
   if (cached !== undefined) return cached;
-  const json = JSON.stringify(await computeAnalysis(assignment));
-  analysisCache.set(assignment.id, assignment.dataRevision, json);
-  return json;
+  const analysis = await computeAnalysis(assignment);
+  const entry = { analysis, json: JSON.stringify(analysis) };
+  analysisCache.set(assignment.id, assignment.dataRevision, entry);
+  return entry;
+}
+
+export async function analysisJson(user: SessionUser, assignmentId: number): Promise<string> {
+  return (await cachedAnalysis(await loadAssignmentFor(db, user, assignmentId))).json;
 }
