@@ -16,9 +16,10 @@ import { salesImportRouter } from './modules/sales-import/sales-import.router';
 import { photosRouter } from './modules/photos/photos.router';
 import { analysisRouter } from './modules/analysis/analysis.router';
 import { gridRouter } from './modules/grid/grid.router';
+import { reviewRouter } from './modules/review/review.router';
 
 /** Every API router, in one list: the access-matrix test walks these. */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter];
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter, reviewRouter];
 
 const WEBHOOK_PATHS: string[] = [];
 
