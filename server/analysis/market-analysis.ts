@@ -3,6 +3,7 @@
 // the sales the line cannot explain (in words), and fits the market-conditions trend.
 import type { Analysis, FlaggedSale, GroupAnalysis, Trend } from '../contracts/analysis';
 import { saleTypeLabels, type SaleType } from '../contracts/sales';
+import { median } from 'simple-statistics';
 import { describeFlags } from './flag-reasons';
 import { summariseFit } from './fit-summary';
 import { fitLine, type FitPoint } from './regression';
@@ -60,7 +61,7 @@ function flaggedSale(sale: AnalysisSale, p: FitPoint, words: string, revealedWhe
     neighbourhood: sale.neighbourhood ?? NO_NEIGHBOURHOOD,
     saleType: sale.saleType,
     flags: p.flags,
-    reason: `${words.charAt(0).toUpperCase()}${words.slice(1)}. Recorded as: ${saleTypeLabels[sale.saleType].toLowerCase()} sale.`,
+    reason: `${words.charAt(0).toUpperCase()}${words.slice(1)}. Sale type on record: ${saleTypeLabels[sale.saleType].toLowerCase()}.`,
     residual: p.residual,
     residualPct: p.fitted > 0 ? p.residual / p.fitted : null,
     externallyStudentized: p.externallyStudentized,
@@ -71,7 +72,21 @@ function flaggedSale(sale: AnalysisSale, p: FitPoint, words: string, revealedWhe
   };
 }
 
-function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSale[], prices: Map<number, number>, x0: number | null): GroupAnalysis {
+/** A floor area this far from the neighbourhood's median is more likely a typing error than a house. */
+export const AREA_TYPO_RATIO = 3;
+
+function areaWords(x: number, xMedian: number, unit: 'sqft' | 'sqm'): string {
+  const ratio = x / xMedian;
+  if (ratio < AREA_TYPO_RATIO && ratio > 1 / AREA_TYPO_RATIO) return '';
+  const times = ratio >= 1 ? `${ratio.toFixed(1)} times` : `${(1 / ratio).toFixed(1)} times smaller than`;
+  return `; its floor area (${formatArea(x, unit)}) is ${times} the median of this neighbourhood's sales: check it for a typing error`;
+}
+
+export function formatArea(v: number, unit: 'sqft' | 'sqm'): string {
+  return `${Math.round(v).toLocaleString('en-US')} ${unit === 'sqft' ? 'ft²' : 'm²'}`;
+}
+
+function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSale[], prices: Map<number, number>, x0: number | null, unit: 'sqft' | 'sqm'): GroupAnalysis {
   const fit = fitLine(
     sales.map((s) => ({ x: s.floorArea, y: prices.get(s.id)! })),
     x0 !== null ? { x0 } : {},
@@ -81,12 +96,14 @@ function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSal
   }
   const points = fit.points.map((p, i) => ({ saleId: sales[i].id, ...p }));
   const context = { n: fit.n, xMin: fit.xMin, xMax: fit.xMax };
+  const xMedian = median(points.map((p) => p.x));
+  // Flags are judged within a neighbourhood: across neighbourhoods, price levels differ by design.
   const flagged: FlaggedSale[] = points
     .map((p, i) => ({ p, sale: sales[i] }))
-    .filter(({ p }) => p.flags.length > 0)
-    .map(({ p, sale }) => flaggedSale(sale, p, describeFlags(p, context), []));
+    .filter(({ p }) => p.flags.length > 0 && !pooled)
+    .map(({ p, sale }) => flaggedSale(sale, p, `${describeFlags(p, context)}${areaWords(p.x, xMedian, unit)}`, []));
   const firstPassOutliers = points.flatMap((p, i) => (p.flags.includes('outlier') ? [i] : []));
-  for (const hidden of revealMaskedOutliers(points, firstPassOutliers)) {
+  for (const hidden of pooled ? [] : revealMaskedOutliers(points, firstPassOutliers)) {
     const sale = sales[hidden.index];
     const names = hidden.setAside.map((i) => sales[i].address).join(', ');
     const pct = hidden.point.fitted > 0 ? Math.round((Math.abs(hidden.point.residual) / hidden.point.fitted) * 100) : 0;
@@ -97,7 +114,7 @@ function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSal
       existing.revealedWhenSetAside = hidden.setAside.map((i) => sales[i].id);
       if (!existing.flags.includes('outlier')) existing.flags = [...existing.flags, 'outlier'];
     } else {
-      flagged.push(flaggedSale(sale, { ...points[hidden.index], flags: ['outlier'] }, words, hidden.setAside.map((i) => sales[i].id)));
+      flagged.push(flaggedSale(sale, { ...hidden.point, flags: ['outlier'] }, words, hidden.setAside.map((i) => sales[i].id)));
     }
   }
   flagged.sort((a, b) => Math.abs(b.externallyStudentized ?? 0) - Math.abs(a.externallyStudentized ?? 0));
@@ -107,7 +124,7 @@ function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSal
   if (!gate.passes) warnings.push(gate.message);
   if (gate.passes && fit.slope <= 0) warnings.push('The line falls as floor area rises: check the flagged sales before using the slope.');
   if (fit.prediction?.extrapolated) {
-    warnings.push(`The subject's floor area (${fmt(fit.prediction.x0, 0)}) lies outside the sales' range (${fmt(fit.xMin, 0)}–${fmt(fit.xMax, 0)}): the estimate extrapolates.`);
+    warnings.push(`The subject's floor area (${formatArea(fit.prediction.x0, unit)}) lies outside the sales' range (${formatArea(fit.xMin, unit)} to ${formatArea(fit.xMax, unit)}): the estimate extrapolates.`);
   }
   return { neighbourhood: name, pooled, n: fit.n, fit: summariseFit(fit), refusal: null, gate, prediction: fit.prediction ?? null, points, flagged, warnings };
 }
@@ -144,10 +161,14 @@ export function analyseMarket(input: AnalysisInput): Analysis {
   }
 
   const x0 = input.subject.floorArea;
-  const groups = names.map((name) => analyseGroup(name, false, byNeighbourhood.get(name)!, prices, name === input.subject.neighbourhood ? x0 : null));
-  groups.push(analyseGroup(POOLED, true, usable, prices, x0));
+  const groups = names.map((name) => analyseGroup(name, false, byNeighbourhood.get(name)!, prices, name === input.subject.neighbourhood ? x0 : null, input.areaUnit));
+  groups.push(analyseGroup(POOLED, true, usable, prices, x0, input.areaUnit));
 
   const warnings: string[] = [];
+  const subjectTrend = trends.find((t) => t.neighbourhood === input.subject.neighbourhood)?.fit;
+  if (input.timeAdjustment && subjectTrend && subjectTrend.slopeInterval[0] < 0 && subjectTrend.slopeInterval[1] > 0) {
+    warnings.push('The market-conditions trend of the subject’s neighbourhood cannot be told apart from no change (its 95% interval spans zero): weigh the time adjustment with care.');
+  }
   if (x0 === null) warnings.push('Enter the subject’s floor area to get an estimate at the subject.');
   if (!input.subject.neighbourhood) warnings.push('Place the subject on the map or type its neighbourhood to pick its neighbourhood’s fit.');
   else if (!byNeighbourhood.has(input.subject.neighbourhood)) warnings.push(`No usable sale lies in ${input.subject.neighbourhood}, the subject’s neighbourhood.`);

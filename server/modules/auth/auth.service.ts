@@ -9,7 +9,7 @@ import { audit } from '../audit/audit.service';
 import { findUserByEmail } from '../users/users.repo';
 import { lucia } from './lucia';
 import { hashPassword, verifyPassword } from './password';
-import { currentCount, increment, reset } from './rate-limit.repo';
+import { decrement, increment, reset } from './rate-limit.repo';
 import { hashToken, newLinkToken } from './tokens';
 
 const SIGN_IN_WINDOW_SECONDS = 15 * 60;
@@ -25,20 +25,17 @@ const wrongCredentials = () =>
 export async function signIn(input: { email: string; password: string; ip: string; previousSessionId: string | null }) {
   const emailKey = `sign-in:email:${input.email}`;
   const ipKey = `sign-in:ip:${input.ip}`;
-  const [emailFailures, ipFailures] = await Promise.all([
-    currentCount(emailKey, SIGN_IN_WINDOW_SECONDS),
-    currentCount(ipKey, SIGN_IN_WINDOW_SECONDS),
-  ]);
-  if (emailFailures >= env.SIGN_IN_MAX_FAILURES || ipFailures >= env.SIGN_IN_MAX_FAILURES * 10) {
+  // Count the attempt before checking the password, in one atomic step: parallel guesses cannot
+  // all read a count that none of them has raised yet.
+  const [emailAttempts, ipAttempts] = await Promise.all([increment(emailKey, SIGN_IN_WINDOW_SECONDS), increment(ipKey, SIGN_IN_WINDOW_SECONDS)]);
+  if (emailAttempts > env.SIGN_IN_MAX_FAILURES || ipAttempts > env.SIGN_IN_MAX_FAILURES * 10) {
     throw tooManyRequests('Too many failed sign-ins. Wait 15 minutes, or reset your password by e-mail.');
   }
   const user = await findUserByEmail(input.email);
   const passwordOk = await verifyPassword(user?.passwordHash ?? null, input.password);
-  if (!user || !passwordOk || !user.active) {
-    await Promise.all([increment(emailKey, SIGN_IN_WINDOW_SECONDS), increment(ipKey, SIGN_IN_WINDOW_SECONDS)]);
-    throw wrongCredentials();
-  }
-  await reset(emailKey);
+  if (!user || !passwordOk || !user.active) throw wrongCredentials();
+  // A success clears the account's count and gives back this attempt to the address.
+  await Promise.all([reset(emailKey), decrement(ipKey)]);
   if (input.previousSessionId) await lucia.invalidateSession(input.previousSessionId);
   const session = await lucia.createSession(user.id, {});
   await audit(db, { actorUserId: user.id, organisationId: user.organisationId, action: 'sign-in', entityType: 'user', entityId: user.id });
@@ -83,6 +80,8 @@ export async function confirmPasswordReset(token: string, password: string): Pro
       .returning();
     if (!row) throw badRequest('This reset link is not valid any more. Ask for a new one.', { token: 'Expired or already used.' });
     await tx.update(users).set({ passwordHash, version: sql`${users.version} + 1` }).where(eq(users.id, row.userId));
+    // Any other reset link still open for this account dies with this one.
+    await tx.update(passwordResets).set({ usedAt: sql`now()` }).where(and(eq(passwordResets.userId, row.userId), isNull(passwordResets.usedAt)));
     await audit(tx, { actorUserId: row.userId, action: 'password-changed', entityType: 'user', entityId: row.userId });
     return row.userId;
   });

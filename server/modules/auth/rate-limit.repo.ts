@@ -21,6 +21,10 @@ export async function increment(key: string, windowSeconds: number): Promise<num
   return rows[0].count;
 }
 
+export async function decrement(key: string): Promise<void> {
+  await db.execute(sql`update rate_limits set count = greatest(count - 1, 0) where key = ${key}`);
+}
+
 export async function reset(key: string): Promise<void> {
   await db.execute(sql`delete from rate_limits where key = ${key}`);
 }
