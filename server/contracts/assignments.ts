@@ -11,7 +11,12 @@ export const statusLabels: Record<AssignmentStatus, string> = {
   signed: 'Signed and delivered',
 };
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-15.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
+/** A calendar day that exists: Date.parse rolls 2026-02-30 over to 2 March, so round-trip it instead. */
+const isRealDay = (s: string) => {
+  const day = new Date(`${s}T00:00:00Z`);
+  return !Number.isNaN(day.getTime()) && day.toISOString().slice(0, 10) === s;
+};
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-15.').refine(isRealDay, 'Not a real date.');
 const text = (max: number, label: string) => z.string().trim().min(1, `Enter the ${label}.`).max(max);
 
 export const assignmentInput = z.object({

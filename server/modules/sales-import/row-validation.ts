@@ -31,7 +31,7 @@ const SALE_TYPE_WORDS: Array<[RegExp, SaleType]> = [
 ];
 
 export function parseSaleType(raw: string): SaleType | null {
-  const n = raw.trim().toLowerCase().replace(/[’_]/g, "'").replace(/_/g, ' ');
+  const n = raw.trim().toLowerCase().replace(/’/g, "'").replace(/_/g, ' ');
   if (!n) return 'arms_length';
   return SALE_TYPE_WORDS.find(([re]) => re.test(n))?.[1] ?? null;
 }
