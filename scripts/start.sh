@@ -43,6 +43,6 @@ say "applying migrations and seeding the Port Ellery demo…"
 npx tsx db/seed/run.ts
 say "building the client…"
 npx vite build --logLevel warn
-npx tsx server/index.ts &
+node --import tsx server/index.ts &
 SERVER_PID=$!
 wait "$SERVER_PID"
