@@ -7,8 +7,9 @@ import * as audit from './schema/audit';
 import * as mail from './schema/mail';
 import * as assignments from './schema/assignments';
 import * as review from './schema/review';
+import * as delivery from './schema/delivery';
 
-export const schema = { ...organisations, ...auth, ...audit, ...mail, ...assignments, ...review };
+export const schema = { ...organisations, ...auth, ...audit, ...mail, ...assignments, ...review, ...delivery };
 
 export const pool = new pg.Pool({
   connectionString: env.DATABASE_URL,

@@ -17,11 +17,16 @@ import { photosRouter } from './modules/photos/photos.router';
 import { analysisRouter } from './modules/analysis/analysis.router';
 import { gridRouter } from './modules/grid/grid.router';
 import { reviewRouter } from './modules/review/review.router';
+import { ordersRouter } from './modules/orders/orders.router';
+import { PAYMENTS_WEBHOOK_PATH, paymentsWebhookRouter } from './modules/orders/payments-webhook.router';
 
-/** Every API router, in one list: the access-matrix test walks these. */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter, reviewRouter];
+/** Every API router, in one list: the access-matrix test walks these (and rawBodyRouters below). */
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter, reviewRouter, ordersRouter];
 
-const WEBHOOK_PATHS: string[] = [];
+/** Routers that read their own raw body (signed webhooks): mounted before the JSON parser. */
+export const rawBodyRouters: Router[] = [paymentsWebhookRouter];
+
+const WEBHOOK_PATHS: string[] = [PAYMENTS_WEBHOOK_PATH];
 
 /** Builds the app without listening: tests import this. */
 export function createApp(options: { clientDir?: string } = {}) {
@@ -49,6 +54,7 @@ export function createApp(options: { clientDir?: string } = {}) {
   );
 
   const api = Router();
+  for (const router of rawBodyRouters) api.use(router);
   api.use(express.json({ limit: '1mb' }));
   api.use(originCheck(WEBHOOK_PATHS));
   api.use(sessionMiddleware);

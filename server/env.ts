@@ -13,6 +13,14 @@ const envSchema = z.object({
   MAP_STYLE_URL: z.string().url().optional(),
   SESSION_DAYS: z.coerce.number().int().min(1).max(90).default(14),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).default(5),
+  /** Unset: the server starts the local fake payments API and uses it. */
+  PAYMENTS_SECRET_KEY: z.string().min(1).optional(),
+  PAYMENTS_WEBHOOK_SECRET: z.string().min(1).optional(),
+  /** Where the payments SDK sends its requests (host, port and protocol); unset: the provider's own. */
+  PAYMENTS_API_URL: z.string().url().optional(),
+}).refine((e) => !e.PAYMENTS_SECRET_KEY || e.PAYMENTS_WEBHOOK_SECRET, {
+  path: ['PAYMENTS_WEBHOOK_SECRET'],
+  message: 'required when PAYMENTS_SECRET_KEY is set (webhooks are verified with it)',
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -6,6 +6,8 @@ import { createApp } from './app';
 import { startFakeSmtpServer } from './integrations/mail/fake-smtp-server';
 import { smtpTransport } from './integrations/mail/transport';
 import { dispatchPending, setMailTransport, startMailDispatcher } from './integrations/mail/outbox';
+import { configurePayments } from './integrations/payments/payments-client';
+import { startFakePaymentsApi, type FakePaymentsApi } from './integrations/payments/fake-payments-api';
 
 async function main() {
   await applyMigrations(db);
@@ -23,11 +25,21 @@ async function main() {
   const stopDispatcher = startMailDispatcher();
   void dispatchPending().catch(() => undefined);
 
+  // Without a provider key, card payments go to the local fake API (test cards only), which sends its
+  // signed webhooks back to this server once it listens.
+  let fakePayments: FakePaymentsApi | undefined;
+  if (!env.PAYMENTS_SECRET_KEY) {
+    fakePayments = await startFakePaymentsApi();
+    configurePayments({ apiUrl: fakePayments.url, secretKey: fakePayments.secretKey, webhookSecret: fakePayments.webhookSecret });
+    console.log(`Compline: no PAYMENTS_SECRET_KEY set, card payments go to the local fake payments API (${fakePayments.url}); test cards pm_card_visa and pm_card_chargeDeclined.`);
+  }
+
   let shuttingDown = false;
   const app = createApp();
   const server = app.listen(env.PORT, '0.0.0.0', () => {
     const { port } = server.address() as AddressInfo;
     console.log(`Compline is listening on http://127.0.0.1:${port}`);
+    fakePayments?.setWebhookUrl(`http://127.0.0.1:${port}/api/payments/webhook`);
   });
   // While shutting down, requests on kept-alive connections are told to go elsewhere.
   server.on('request', (_req, res) => {
@@ -42,6 +54,7 @@ async function main() {
     server.close(async () => {
       transport.close();
       await closeFakeSmtp?.();
+      await fakePayments?.close();
       await pool.end();
       console.log('Compline: stopped.');
       process.exit(0);

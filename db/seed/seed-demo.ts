@@ -4,6 +4,7 @@ import { organisations, users } from '../schema/organisations';
 import { hashPassword } from '../../server/modules/auth/password';
 import { DEMO_PASSWORD, demoOrganisations, demoUsers } from './demo-accounts';
 import { seedDemoAssignment } from './seed-assignment';
+import { seedDemoFees } from './seed-fees';
 
 /** Seeds the Port Ellery demo. Idempotent: rows are matched by natural keys (organisation name,
  * e-mail), so a second run adds nothing and never touches what users added or changed. */
@@ -26,4 +27,5 @@ export async function seedDemo(db: Db): Promise<void> {
     }
   });
   await seedDemoAssignment(db);
+  await seedDemoFees(db);
 }

@@ -1,6 +1,6 @@
 import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
-import { db } from '../../../db/client';
+import { db, type DbOrTx } from '../../../db/client';
 import { assignments, subjects } from '../../../db/schema/assignments';
 import type { SessionUser } from '../../contracts/auth';
 import type { assignmentInput, assignmentUpdate, subjectUpdate } from '../../contracts/assignments';
@@ -18,16 +18,20 @@ async function checkClientOrganisation(id: number) {
   }
 }
 
+/** Inserts an assignment with its empty subject row and the audit event, in the caller's
+ * transaction (also used when the firm accepts a client's order). Returns the new id. */
+export async function insertAssignment(tx: DbOrTx, actor: SessionUser, values: typeof assignments.$inferInsert, details: Record<string, unknown>): Promise<number> {
+  const [row] = await tx.insert(assignments).values(values).returning({ id: assignments.id });
+  await tx.insert(subjects).values({ assignmentId: row.id });
+  await audit(tx, { actorUserId: actor.id, organisationId: actor.organisationId, action: 'assignment-created', entityType: 'assignment', entityId: row.id, details });
+  return row.id;
+}
+
 export async function createAssignment(user: SessionUser, input: z.infer<typeof assignmentInput>) {
   await checkClientOrganisation(input.clientOrganisationId);
   return db.transaction(async (tx) => {
-    const [row] = await tx
-      .insert(assignments)
-      .values({ ...input, firmOrganisationId: user.organisationId, appraiserUserId: user.id })
-      .returning({ id: assignments.id });
-    await tx.insert(subjects).values({ assignmentId: row.id });
-    await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'assignment-created', entityType: 'assignment', entityId: row.id, details: { ...input } });
-    return (await findAssignment(tx, row.id))!;
+    const id = await insertAssignment(tx, user, { ...input, firmOrganisationId: user.organisationId, appraiserUserId: user.id }, { ...input });
+    return (await findAssignment(tx, id))!;
   });
 }
 
