@@ -10,6 +10,6 @@ export default defineConfig({
   publicDir: '../public',
   plugins: [react(), tailwindcss()],
   resolve: { alias: { '@contracts': fileURLToPath(new URL('./server/contracts', import.meta.url)) } },
-  build: { outDir: '../dist/client', emptyOutDir: true, chunkSizeWarningLimit: 1200 },
+  build: { outDir: '../dist/client', emptyOutDir: true, chunkSizeWarningLimit: 1200, manifest: true },
   server: { port: 5173, proxy: { '/api': `http://127.0.0.1:${apiPort}` } },
 });

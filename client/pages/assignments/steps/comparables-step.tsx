@@ -1,0 +1,6 @@
+import type { StepProps } from './step-registry';
+
+// Placeholder until this step's page lands (working tree only).
+export function ComparablesStep(_props: StepProps) {
+  return <p className="text-ink-soft">This step is being built.</p>;
+}
