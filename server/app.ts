@@ -17,11 +17,13 @@ import { photosRouter } from './modules/photos/photos.router';
 import { analysisRouter } from './modules/analysis/analysis.router';
 import { gridRouter } from './modules/grid/grid.router';
 import { reviewRouter } from './modules/review/review.router';
+import { reportsRouter } from './modules/reports/reports.router';
+import { reconsiderationsRouter } from './modules/reconsiderations/reconsiderations.router';
 import { ordersRouter } from './modules/orders/orders.router';
 import { PAYMENTS_WEBHOOK_PATH, paymentsWebhookRouter } from './modules/orders/payments-webhook.router';
 
 /** Every API router, in one list: the access-matrix test walks these (and rawBodyRouters below). */
-export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter, reviewRouter, ordersRouter];
+export const apiRouters: Router[] = [healthRouter, authRouter, usersRouter, adminRouter, assignmentsRouter, salesRouter, salesImportRouter, photosRouter, analysisRouter, gridRouter, reviewRouter, ordersRouter, reportsRouter, reconsiderationsRouter];
 
 /** Routers that read their own raw body (signed webhooks): mounted before the JSON parser. */
 export const rawBodyRouters: Router[] = [paymentsWebhookRouter];

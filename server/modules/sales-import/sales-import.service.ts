@@ -9,13 +9,13 @@ import { audit } from '../audit/audit.service';
 import { assertEditable, loadAssignmentFor } from '../assignments/assignment-access';
 import { bumpDataRevision } from '../assignments/assignments.repo';
 import { withNeighbourhood } from '../sales/sales.service';
+import { insertSalesBulk } from './bulk-insert';
 import { guessMapping } from './column-guess';
 import { scanCsv } from './csv-scan';
 import { duplicateKey, validateRow } from './row-validation';
 
 const PROBLEMS_LISTED = 500;
 const PREVIEW_ROWS = 8;
-const INSERT_BATCH = 1000;
 
 interface Checked {
   headers: string[];
@@ -113,10 +113,7 @@ export async function commitImport(user: SessionUser, assignmentId: number, inpu
       .insert(salesImports)
       .values({ assignmentId, userId: user.id, fileName: input.fileName.slice(0, 200), rowsImported: checked.accepted.length, rowsSkipped: checked.invalidRows })
       .returning({ id: salesImports.id });
-    for (let i = 0; i < checked.accepted.length; i += INSERT_BATCH) {
-      const batch = checked.accepted.slice(i, i + INSERT_BATCH).map((s) => ({ ...withNeighbourhood(s), assignmentId, importId: run.id }));
-      await tx.insert(sales).values(batch);
-    }
+    await insertSalesBulk(tx, assignmentId, run.id, checked.accepted.map((s) => withNeighbourhood(s)));
     await tx
       .insert(importMappings)
       .values({ userId: user.id, mapping: input.mapping })
