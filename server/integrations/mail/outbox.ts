@@ -1,4 +1,4 @@
-import { and, asc, eq, lte, sql } from 'drizzle-orm';
+import { asc, eq, inArray, sql } from 'drizzle-orm';
 import { db, type DbOrTx } from '../../../db/client';
 import { outboxMessages } from '../../../db/schema/mail';
 import type { MailTransport } from './transport';
@@ -46,12 +46,22 @@ export function dispatchPending(): Promise<number> {
 
 async function sendDue(): Promise<number> {
   if (!transport) return 0;
+  // Claim due rows with a short lease, skipping rows another instance holds: with several app
+  // instances each message is still sent by one of them.
+  const claimed = await db.execute<{ id: number }>(sql`
+    update ${outboxMessages} set next_attempt_at = now() + interval '2 minutes'
+    where id in (
+      select id from ${outboxMessages}
+      where status = 'queued' and next_attempt_at <= now()
+      order by id limit 100
+      for update skip locked)
+    returning id`);
+  if (claimed.rows.length === 0) return 0;
   const due = await db
     .select()
     .from(outboxMessages)
-    .where(and(eq(outboxMessages.status, 'queued'), lte(outboxMessages.nextAttemptAt, sql`now()`)))
-    .orderBy(asc(outboxMessages.id))
-    .limit(100);
+    .where(inArray(outboxMessages.id, claimed.rows.map((r) => r.id)))
+    .orderBy(asc(outboxMessages.id));
   let sent = 0;
   for (const message of due) {
     try {
