@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import type { Db } from '../client';
+import type { Db, DbOrTx } from '../client';
 import { assignments, sales, subjects } from '../schema/assignments';
 import { organisations, users } from '../schema/organisations';
 import { DEMO_FIRM, DEMO_LENDER, demoUsers } from './demo-accounts';
@@ -7,10 +7,60 @@ import { generatePortEllery } from './port-ellery';
 
 export const DEMO_SUBJECT_ADDRESS = '14 Lantern Lane';
 
+export interface PortElleryAssignmentInput {
+  firmOrganisationId: number;
+  clientOrganisationId: number;
+  appraiserUserId: number;
+  subjectAddress: string;
+}
+
+/** Inserts one assignment with the Port Ellery subject and every generated market sale; returns its
+ * id. The demo seed calls it once; test factories call it for copies of their own. */
+export async function insertPortElleryAssignment(tx: DbOrTx, input: PortElleryAssignmentInput): Promise<number> {
+  const scenario = generatePortEllery();
+  const [assignment] = await tx
+    .insert(assignments)
+    .values({
+      ...input,
+      intendedUse: 'Mortgage lending decision for a purchase loan (first lien)',
+      loanReference: 'HM-2026-0419',
+      effectiveDate: scenario.effectiveDate,
+      dueDate: '2026-12-10',
+      areaUnit: 'sqft',
+      currency: scenario.currency,
+    })
+    .returning({ id: assignments.id });
+  const neighbourhoodName = (slug: string) => scenario.neighbourhoods.find((n) => n.slug === slug)!.name;
+  const { subject } = scenario;
+  await tx.insert(subjects).values({
+    assignmentId: assignment.id,
+    lon: subject.lon,
+    lat: subject.lat,
+    neighbourhood: neighbourhoodName(subject.neighbourhood),
+    floorArea: subject.floorArea,
+    lotSize: subject.lotSize,
+    bedrooms: subject.bedrooms,
+    bathrooms: subject.bathrooms,
+    yearBuilt: subject.yearBuilt,
+    condition: subject.condition,
+    quality: subject.quality,
+    garageSpaces: subject.garageSpaces,
+    notes: 'Single-storey house on a quiet lane; inspected 2026-11-12.',
+  });
+  await tx.insert(sales).values(
+    scenario.sales.map(({ key: _key, neighbourhood, saleType, ...sale }) => ({
+      ...sale,
+      assignmentId: assignment.id,
+      neighbourhood: neighbourhoodName(neighbourhood),
+      saleType: saleType.replace('-', '_') as 'arms_length',
+    })),
+  );
+  return assignment.id;
+}
+
 /** The demo assignment for 14 Lantern Lane with the generated Port Ellery market sales. Created once;
  * a later run finds it by firm and subject address and leaves it (and users' changes) alone. */
 export async function seedDemoAssignment(db: Db): Promise<void> {
-  const scenario = generatePortEllery();
   await db.transaction(async (tx) => {
     const [firm] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_FIRM));
     const [lender] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_LENDER));
@@ -21,45 +71,11 @@ export async function seedDemoAssignment(db: Db): Promise<void> {
       .from(assignments)
       .where(and(eq(assignments.firmOrganisationId, firm.id), eq(assignments.subjectAddress, DEMO_SUBJECT_ADDRESS)));
     if (existing) return;
-    const [assignment] = await tx
-      .insert(assignments)
-      .values({
-        firmOrganisationId: firm.id,
-        clientOrganisationId: lender.id,
-        appraiserUserId: appraiser.id,
-        subjectAddress: DEMO_SUBJECT_ADDRESS,
-        intendedUse: 'Mortgage lending decision for a purchase loan (first lien)',
-        loanReference: 'HM-2026-0419',
-        effectiveDate: scenario.effectiveDate,
-        dueDate: '2026-12-10',
-        areaUnit: 'sqft',
-        currency: scenario.currency,
-      })
-      .returning({ id: assignments.id });
-    const neighbourhoodName = (slug: string) => scenario.neighbourhoods.find((n) => n.slug === slug)!.name;
-    const { subject } = scenario;
-    await tx.insert(subjects).values({
-      assignmentId: assignment.id,
-      lon: subject.lon,
-      lat: subject.lat,
-      neighbourhood: neighbourhoodName(subject.neighbourhood),
-      floorArea: subject.floorArea,
-      lotSize: subject.lotSize,
-      bedrooms: subject.bedrooms,
-      bathrooms: subject.bathrooms,
-      yearBuilt: subject.yearBuilt,
-      condition: subject.condition,
-      quality: subject.quality,
-      garageSpaces: subject.garageSpaces,
-      notes: 'Single-storey house on a quiet lane; inspected 2026-11-12.',
+    await insertPortElleryAssignment(tx, {
+      firmOrganisationId: firm.id,
+      clientOrganisationId: lender.id,
+      appraiserUserId: appraiser.id,
+      subjectAddress: DEMO_SUBJECT_ADDRESS,
     });
-    await tx.insert(sales).values(
-      scenario.sales.map(({ key: _key, neighbourhood, saleType, ...sale }) => ({
-        ...sale,
-        assignmentId: assignment.id,
-        neighbourhood: neighbourhoodName(neighbourhood),
-        saleType: saleType.replace('-', '_') as 'arms_length',
-      })),
-    );
   });
 }

@@ -1,0 +1,99 @@
+import { CartesianGrid, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
+import type { FitSummary, GroupAnalysis } from '@contracts/analysis';
+import { niceDomain } from '../lib/axis-domain';
+import { inRange } from '../lib/focus-range';
+import type { FigureFormat } from '../lib/figure-format';
+import type { Flag } from '../lib/flag-words';
+import { describeFlags } from '../lib/flag-words';
+import type { SaleLookup } from '../lib/sale-lookup';
+import { SaleMark, type SalePoint } from './chart-marks';
+import { axisLabel, axisLine, axisTick, gridStroke } from './chart-style';
+import { SaleTooltip } from './sale-tooltip';
+
+interface ResidualPoint extends SalePoint {
+  residual: number;
+  flags: readonly Flag[];
+}
+
+interface Props {
+  group: GroupAnalysis & { fit: FitSummary };
+  flagsById: ReadonlyMap<number, readonly Flag[]>;
+  format: FigureFormat;
+  lookup: SaleLookup;
+  onOpen: (saleId: number) => void;
+  /** Show only the sales whose floor area lies in this range (the scatter's zoom). */
+  focus: [number, number] | null;
+  height: number;
+}
+
+/** Residuals against fitted values, with the zero line and guides at two residual standard
+ * errors either side: a pattern here (a funnel, a curve) is a question for the appraiser. */
+export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus, height }: Props) {
+  const s = group.fit.residualStdError;
+  // x is the fitted price, y the residual: the same sale, seen from the line.
+  const points: ResidualPoint[] = group.points.filter((p) => inRange(focus, p.x)).map((p) => ({
+    saleId: p.saleId,
+    x: p.fitted,
+    y: p.residual,
+    residual: p.residual,
+    studentized: p.externallyStudentized,
+    flagged: flagsById.has(p.saleId),
+    flags: flagsById.get(p.saleId) ?? [],
+  }));
+  const x = niceDomain(points.map((p) => p.x), 5);
+  const y = niceDomain([...points.map((p) => p.y), 2 * s, -2 * s, 0], 5);
+
+  return (
+    <ResponsiveContainer width="100%" height={height}>
+      <ScatterChart margin={{ top: 10, right: 16, bottom: 30, left: 4 }}>
+        <CartesianGrid stroke={gridStroke} vertical={false} />
+        <XAxis
+          type="number"
+          dataKey="x"
+          domain={x.domain}
+          ticks={x.ticks}
+          allowDataOverflow
+          tickFormatter={(v: number) => format.compactMoney(v)}
+          tick={axisTick}
+          axisLine={axisLine}
+          tickLine={axisLine}
+          label={{ ...axisLabel, value: 'Fitted price', position: 'insideBottom', offset: -18 }}
+        />
+        <YAxis
+          type="number"
+          dataKey="y"
+          domain={y.domain}
+          ticks={y.ticks}
+          allowDataOverflow
+          width={72}
+          tickFormatter={(v: number) => format.compactMoney(v)}
+          tick={axisTick}
+          axisLine={axisLine}
+          tickLine={axisLine}
+          label={{ ...axisLabel, value: 'Residual', angle: -90, position: 'insideLeft', offset: 2, style: { textAnchor: 'middle' } }}
+        />
+        {s > 0 && <ReferenceLine y={2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '+2s', position: 'insideTopRight', ...axisLabel, fontSize: 11 }} />}
+        {s > 0 && <ReferenceLine y={-2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '−2s', position: 'insideBottomRight', ...axisLabel, fontSize: 11 }} />}
+        <ReferenceLine y={0} stroke="var(--color-ink)" strokeWidth={1.5} />
+        <Scatter data={points} isAnimationActive={false} shape={(props: object) => <SaleMark {...props} radius={4} onOpen={onOpen} />} />
+        <Tooltip
+          cursor={false}
+          isAnimationActive={false}
+          content={(props) => (
+            <SaleTooltip<ResidualPoint>
+              active={props.active}
+              payload={props.payload}
+              title={(d) => lookup(d.saleId).address}
+              rows={(d) => [
+                ['Fitted price', format.money(d.x)],
+                ['Residual', format.signedMoney(d.residual)],
+                ['Studentized', format.signedRatio(d.studentized)],
+              ]}
+              note={(d) => (d.flagged ? `Flagged: ${describeFlags(d.flags)}.` : null)}
+            />
+          )}
+        />
+      </ScatterChart>
+    </ResponsiveContainer>
+  );
+}

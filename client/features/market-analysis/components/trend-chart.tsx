@@ -1,0 +1,91 @@
+import { CartesianGrid, DefaultZIndexes, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZIndexLayer } from 'recharts';
+import type { FitSummary, Trend } from '@contracts/analysis';
+import { niceDomain } from '../lib/axis-domain';
+import type { FigureFormat } from '../lib/figure-format';
+import { predictionBand } from '../lib/prediction-band';
+import type { SaleLookup } from '../lib/sale-lookup';
+import { FitLayer, SaleMark, type SalePoint } from './chart-marks';
+import { axisLabel, axisLine, axisTick, gridStroke } from './chart-style';
+import { SaleTooltip } from './sale-tooltip';
+
+interface Props {
+  trend: Trend & { fit: FitSummary };
+  flaggedIds: ReadonlySet<number>;
+  format: FigureFormat;
+  lookup: SaleLookup;
+  onOpen: (saleId: number) => void;
+  height: number;
+}
+
+/** Price per unit area against months before the effective date, oldest sales on the left, with
+ * the fitted trend line. */
+export function TrendChart({ trend, flaggedIds, format, lookup, onOpen, height }: Props) {
+  const points: SalePoint[] = trend.points.map((p) => ({
+    saleId: p.saleId,
+    x: p.monthsBefore,
+    y: p.pricePerArea,
+    studentized: null,
+    flagged: flaggedIds.has(p.saleId),
+  }));
+  const x = niceDomain([0, ...points.map((p) => p.x)], 6, 0);
+  const line = predictionBand(trend.fit, trend.fit.xMin, trend.fit.xMax, 2);
+  const y = niceDomain([...points.map((p) => p.y), ...line.map((p) => p.fitted)], 5);
+
+  return (
+    <ResponsiveContainer width="100%" height={height}>
+      <ScatterChart margin={{ top: 10, right: 16, bottom: 30, left: 4 }}>
+        <CartesianGrid stroke={gridStroke} vertical={false} />
+        <XAxis
+          type="number"
+          dataKey="x"
+          reversed
+          domain={[Math.max(0, x.domain[0]), x.domain[1]]}
+          ticks={x.ticks.filter((t) => t >= 0)}
+          allowDataOverflow
+          tickFormatter={(v: number) => format.count(v)}
+          tick={axisTick}
+          axisLine={axisLine}
+          tickLine={axisLine}
+          label={{ ...axisLabel, value: 'Months before the effective date', position: 'insideBottom', offset: -18 }}
+        />
+        <YAxis
+          type="number"
+          dataKey="y"
+          domain={y.domain}
+          ticks={y.ticks}
+          allowDataOverflow
+          width={72}
+          tickFormatter={(v: number) => format.compactMoney(v)}
+          tick={axisTick}
+          axisLine={axisLine}
+          tickLine={axisLine}
+          label={{ ...axisLabel, value: `Price per ${format.unit}`, angle: -90, position: 'insideLeft', offset: 2, style: { textAnchor: 'middle' } }}
+        />
+        <ZIndexLayer zIndex={DefaultZIndexes.area}>
+          <FitLayer band={line} showBand={false} />
+        </ZIndexLayer>
+        <Scatter
+          data={points}
+          isAnimationActive={false}
+          shape={(props: object) => <SaleMark {...props} radius={3.5} fill="var(--color-ink-soft)" onOpen={onOpen} />}
+        />
+        <Tooltip
+          cursor={false}
+          isAnimationActive={false}
+          content={(props) => (
+            <SaleTooltip<SalePoint>
+              active={props.active}
+              payload={props.payload}
+              title={(d) => lookup(d.saleId).address}
+              rows={(d) => [
+                [`Price per ${format.unit}`, format.rateAmount(d.y)],
+                ['Sold', `${format.months(d.x)} before`],
+              ]}
+              note={(d) => (d.flagged ? 'Flagged in the floor-area fit.' : null)}
+            />
+          )}
+        />
+      </ScatterChart>
+    </ResponsiveContainer>
+  );
+}
