@@ -30,7 +30,8 @@ function FlaggedRow({ sale, action }: { sale: FlaggedSale; action: ReactNode }) 
           <p className="mt-1.5 max-w-3xl text-[0.9375rem] leading-relaxed text-ink-soft">{sale.reason}</p>
         </div>
       </div>
-      <div className="flex flex-col items-start gap-2 md:items-end md:pl-4">{action}</div>
+      {/* An opened form (the question being written) takes the row's full width under the reason. */}
+      <div className="flex flex-col items-start gap-2 md:items-end md:pl-4 md:has-[form]:col-span-2 md:has-[form]:items-stretch md:has-[form]:pl-7">{action}</div>
     </li>
   );
 }
