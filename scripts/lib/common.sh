@@ -11,7 +11,8 @@ say() { printf '\033[1mcompline:\033[0m %s\n' "$*"; }
 ensure_node_modules() {
   if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
     say "installing npm packages (npm ci)…"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    # --include=dev: the client build (vite) and the tests need dev packages even when NODE_ENV=production.
+    (cd "$ROOT" && npm ci --include=dev --no-audit --no-fund --loglevel=error)
   fi
 }
 
