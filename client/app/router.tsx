@@ -14,6 +14,11 @@ const routes: RouteObject[] = [
     hydrateFallbackElement: <PageLoading fullPage />,
     children: [
       {
+        // The public fingerprint check: open to anyone, signed in or not, in a frame of its own.
+        path: 'verify/:sha256?',
+        lazy: () => import('../pages/verify/verify-page').then((m) => ({ Component: m.VerifyPage })),
+      },
+      {
         // Pages a signed-out visitor may open.
         lazy: () => import('./public-layout').then((m) => ({ Component: m.PublicLayout })),
         children: [
@@ -40,6 +45,10 @@ const routes: RouteObject[] = [
               { index: true, lazy: () => import('../pages/home/home-page').then((m) => ({ Component: m.HomePage })) },
               { path: 'outbox', lazy: () => import('../pages/admin/outbox-page').then((m) => ({ Component: m.OutboxPage })) },
               { path: 'audit', lazy: () => import('../pages/admin/audit-trail-page').then((m) => ({ Component: m.AuditTrailPage })) },
+              { path: 'orders', lazy: () => import('../pages/orders/orders-page').then((m) => ({ Component: m.OrdersPage })) },
+              { path: 'orders/new', lazy: () => import('../pages/orders/new-order-page').then((m) => ({ Component: m.NewOrderPage })) },
+              { path: 'orders/:id', lazy: () => import('../pages/orders/order-page').then((m) => ({ Component: m.OrderPage })) },
+              { path: 'reports/:id', lazy: () => import('../pages/reports/report-page').then((m) => ({ Component: m.ReportPage })) },
               {
                 path: 'assignments/:id/:step?',
                 lazy: () =>

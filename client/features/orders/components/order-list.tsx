@@ -1,21 +1,15 @@
 import { useQuery } from '@tanstack/react-query';
-import { orderStatusLabels, type Order } from '@contracts/orders';
-import { Badge } from '../../../components/ui/badge';
+import { Link } from 'react-router-dom';
+import type { Order } from '@contracts/orders';
+import { buttonClasses } from '../../../components/ui/button';
 import { EmptyPanel, ErrorPanel, LoadingPanel } from '../../../components/ui/query-states';
-import { Table, Td, Th } from '../../../components/ui/table';
-import { formatDate, formatIsoDate } from '../../../lib/format-date';
-import { formatMoney } from '../../../lib/format-money';
 import { orderQueries } from '../api/order-queries';
+import { OrderCard } from './order-card';
+import type { ReportLink } from './order-timeline';
 
-const statusTone: Record<Order['status'], 'pending' | 'neutral' | 'positive' | 'negative'> = {
-  awaiting_payment: 'pending',
-  received: 'neutral',
-  accepted: 'positive',
-  declined: 'negative',
-};
-
-/** The lender's orders and where each stands, newest first as the server sends them. */
-export function OrderList() {
+/** The lender's orders and where each stands, newest first as the server sends them. The page
+ * passes `reportFor`, which finds the delivered report of an order (the reports feature owns it). */
+export function OrderList({ reportFor }: { reportFor?: (order: Order) => ReportLink | null }) {
   const orders = useQuery(orderQueries.list());
 
   if (orders.isPending) return <LoadingPanel label="Loading your orders…" />;
@@ -23,39 +17,22 @@ export function OrderList() {
     return <ErrorPanel title="Your orders could not be loaded" error={orders.error} onRetry={() => void orders.refetch()} retrying={orders.isFetching} />;
   }
   if (orders.data.length === 0) {
-    return <EmptyPanel title="No orders yet">Appraisals your organisation orders from the firm appear here.</EmptyPanel>;
+    return (
+      <EmptyPanel title="No orders yet">
+        <p>Appraisals your organisation orders from the firm appear here, with where each one stands.</p>
+        <Link to="/orders/new" className={buttonClasses('primary', 'md', 'mt-4')}>
+          Order an appraisal
+        </Link>
+      </EmptyPanel>
+    );
   }
   return (
-    <Table caption="Your orders">
-      <thead>
-        <tr>
-          <Th>Subject</Th>
-          <Th>Appraisal firm</Th>
-          <Th>Status</Th>
-          <Th className="text-right">Fee</Th>
-          <Th className="text-right">Due</Th>
-        </tr>
-      </thead>
-      <tbody>
-        {orders.data.map((order) => (
-          <tr key={order.id}>
-            <Td>
-              <p className="font-semibold">{order.subjectAddress}</p>
-              <p className="text-[0.8125rem] text-ink-faint">
-                Loan <span className="figures">{order.loanReference}</span> · ordered by {order.orderedByName} on{' '}
-                <span className="figures">{formatDate(order.createdAt)}</span>
-              </p>
-            </Td>
-            <Td className="text-ink-soft">{order.firmName}</Td>
-            <Td>
-              <Badge tone={statusTone[order.status]}>{orderStatusLabels[order.status]}</Badge>
-              {order.declineReason && <p className="mt-1 max-w-56 text-[0.8125rem] text-ink-soft">{order.declineReason}</p>}
-            </Td>
-            <Td className="figures text-right text-sm whitespace-nowrap">{formatMoney(order.feeAmount, order.currency)}</Td>
-            <Td className="figures text-right text-sm whitespace-nowrap">{formatIsoDate(order.dueDate)}</Td>
-          </tr>
-        ))}
-      </tbody>
-    </Table>
+    <ul aria-label="Your orders" className="flex flex-col gap-4">
+      {orders.data.map((order) => (
+        <li key={order.id}>
+          <OrderCard order={order} viewer="client" reportLink={reportFor?.(order) ?? null} />
+        </li>
+      ))}
+    </ul>
   );
 }
