@@ -116,7 +116,7 @@ describe("Anscombe's quartet (Anscombe 1973, The American Statistician 27(1), 17
 describe("R's lm(dist ~ speed) on the cars data (Ezekiel 1930)", () => {
   const fit = ok(fitLine(CARS_ROWS.map(([x, y]) => ({ x, y })), { x0: 10 }));
 
-  it('transcription guard: summary(cars) means', () => {
+  it('copy guard: summary(cars) means', () => {
     expectPrinted(fit.xMean, '15.4', 'mean speed');
     expectPrinted(fit.yMean, '42.98', 'mean dist');
   });

@@ -1,7 +1,7 @@
 // Speed (mph) and stopping distance (ft) of 50 cars, recorded in the 1920s: Ezekiel, M. (1930),
 // Methods of Correlation Analysis, Wiley; distributed with R as the `cars` data set. Transcribed
 // from a public JSON export of R's `cars`. Its published summary (mean speed 15.4, mean distance
-// 42.98) is checked in the test as a guard against transcription slips.
+// 42.98) is checked in the test as a guard against copying slips.
 
 /** [speed, dist] in R's row order. */
 export const CARS_ROWS: ReadonlyArray<readonly [number, number]> = [
