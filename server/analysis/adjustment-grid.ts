@@ -80,7 +80,8 @@ export interface GridResult {
 export const GROSS_FLOOR = 0.005;
 
 export function roundToIncrement(value: number, increment: number): number {
-  return increment > 0 ? Math.round(value / increment) * increment : value;
+  // `+ 0` turns a rounded −0 into 0, so a tiny negative slope never shows as "-0".
+  return increment > 0 ? Math.round(value / increment) * increment + 0 : value;
 }
 
 const pct = (v: number) => `${(v * 100).toFixed(1)}%`;
@@ -124,8 +125,10 @@ export function computeGrid(input: GridInput): GridResult {
       adjustedPrice: b.adjustedPrice,
       netAdjustmentPct: b.netAdjustmentPct,
       grossAdjustmentPct: b.grossAdjustmentPct,
-      netOverLimit: b.netAdjustmentPct * 100 > limits.netLimitPct,
-      grossOverLimit: b.grossAdjustmentPct * 100 > limits.grossLimitPct,
+      // Compare share with share: 0.14 × 100 is 14.000000000000002, so `share × 100 > limit` flagged a sale
+      // exactly at a 7 % or 14 % limit as above it; limit / 100 and amount / price round alike.
+      netOverLimit: b.netAdjustmentPct > limits.netLimitPct / 100,
+      grossOverLimit: b.grossAdjustmentPct > limits.grossLimitPct / 100,
       weightPct,
       weightIsDefault,
     };
