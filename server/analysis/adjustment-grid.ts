@@ -2,7 +2,9 @@
 // adjustment → market-conditions (time) adjustment → floor-area adjustment = rate × (subject area −
 // sale area) → the appraiser's line items → adjusted price; net and gross adjustment as a share of
 // the sale price; weights (default 1/gross, normalised); the weighted indicated value and the
-// rounded opinion of value. Soft checks say what a reviewer would ask about, and why.
+// rounded opinion of value. Soft checks say what a reviewer would ask about, and why. Every
+// adjustment is computed from the recorded sale price: the time adjustment is price × monthly rate ×
+// months, not applied to the concession-adjusted price.
 
 export interface GridLineItem {
   feature: string;
