@@ -8,7 +8,8 @@ export default defineConfig({
   test: {
     include: ['tests/**/*.test.ts'],
     globalSetup: ['tests/setup/global-setup.ts'],
-    testTimeout: 30_000,
+    // A hang guard, not a speed check: browser tests render maps in software WebGL.
+    testTimeout: 120_000,
     hookTimeout: 120_000,
     fileParallelism: false,
     pool: 'forks',
