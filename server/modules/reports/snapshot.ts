@@ -24,17 +24,16 @@ export interface SigningFacts {
 /** Gathers every input and result of the assignment into one plain object (no Dates: ISO strings),
  * computed afresh from the database rather than from any cache. */
 export async function buildSnapshot(tx: DbOrTx, assignment: AssignmentRow, signer: SessionUser, facts: SigningFacts, versionNumber: number, signedAt: Date): Promise<ReportSnapshot> {
-  const [subject, sales, photoRows, queries, analysis, grid] = await Promise.all([
-    findSubject(tx, assignment.id),
-    listSales(tx, assignment.id),
-    tx
-      .select({ id: photos.id, saleId: photos.saleId, sha256: photos.sha256, width: photos.width, height: photos.height })
-      .from(photos)
-      .where(and(eq(photos.assignmentId, assignment.id), isNull(photos.deletedAt))),
-    listQueries(tx, assignment.id),
-    computeAnalysis(assignment),
-    buildGrid(assignment),
-  ]);
+  // One after another: these share the signing transaction's connection.
+  const subject = await findSubject(tx, assignment.id);
+  const sales = await listSales(tx, assignment.id);
+  const photoRows = await tx
+    .select({ id: photos.id, saleId: photos.saleId, sha256: photos.sha256, width: photos.width, height: photos.height })
+    .from(photos)
+    .where(and(eq(photos.assignmentId, assignment.id), isNull(photos.deletedAt)));
+  const queries = await listQueries(tx, assignment.id);
+  const analysis = await computeAnalysis(assignment);
+  const grid = await buildGrid(assignment);
   const snapshot: ReportSnapshot = {
     schemaVersion: 1,
     firmName: signer.organisationName,
