@@ -22,7 +22,7 @@ export async function signAssignment(user: SessionUser, assignmentId: number, in
   return db.transaction(async (tx) => {
     const assignment = await loadAssignmentFor(tx, user, assignmentId);
     if (assignment.appraiserUserId !== user.id) throw forbidden('Only the assignment’s own appraiser can sign it.');
-    if (assignment.status !== 'approved') throw conflict('Only an approved assignment can be signed.', 'not_approved');
+    if (assignment.status !== 'approved') throw conflict('Only an approved assignment can be signed.', 'invalid_transition');
     const [locked] = await tx
       .update(assignments)
       .set({ status: 'signed', version: sql`${assignments.version} + 1`, updatedAt: sql`now()` })
