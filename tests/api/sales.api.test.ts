@@ -113,6 +113,15 @@ describe('editing a sale', () => {
     expect((await saleRow(sale.id)).inGrid).toBe(false);
   });
 
+  it('keeps an excluded sale out of the grid', async () => {
+    const { agent, assignment } = await appraiserWithAssignment();
+    const sale = await createSale(assignment.id, { excluded: true, exclusionReason: 'Sold between relatives.' });
+    const res = await agent.patch(`/api/assignments/${assignment.id}/sales/${sale.id}`).send({ version: sale.version, inGrid: true });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('sale_excluded');
+    expect((await saleRow(sale.id)).inGrid).toBe(false);
+  });
+
   it('soft-deletes: the sale leaves the list, the row stays with deleted_at set', async () => {
     const { agent, assignment } = await appraiserWithAssignment();
     const kept = await createSale(assignment.id);

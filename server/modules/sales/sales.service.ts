@@ -4,7 +4,7 @@ import { db } from '../../../db/client';
 import { photos, sales } from '../../../db/schema/assignments';
 import type { SessionUser } from '../../contracts/auth';
 import type { saleCreate, saleUpdate } from '../../contracts/sales';
-import { badRequest, notFound, staleVersion } from '../../errors';
+import { badRequest, conflict, notFound, staleVersion } from '../../errors';
 import { audit } from '../audit/audit.service';
 import { assertEditable, loadAssignmentFor } from '../assignments/assignment-access';
 import { bumpDataRevision } from '../assignments/assignments.repo';
@@ -28,9 +28,11 @@ export async function createSale(user: SessionUser, assignmentId: number, input:
   return db.transaction(async (tx) => {
     assertEditable(await loadAssignmentFor(tx, user, assignmentId));
     const [row] = await tx.insert(sales).values({ ...withNeighbourhood(input), assignmentId }).returning({ id: sales.id });
-    await bumpDataRevision(tx, assignmentId);
     await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'sale-created', entityType: 'sale', entityId: row.id, details: { assignmentId, ...input } });
-    return (await findSale(tx, assignmentId, row.id))!;
+    const created = (await findSale(tx, assignmentId, row.id))!;
+    // Last: the bump locks the assignment row until commit, and every edit of the file waits on it.
+    await bumpDataRevision(tx, assignmentId);
+    return created;
   });
 }
 
@@ -40,6 +42,9 @@ export async function updateSale(user: SessionUser, assignmentId: number, saleId
     const before = await findSale(tx, assignmentId, saleId);
     if (!before) throw notFound('That sale');
     const { version, ...changes } = input;
+    if (changes.inGrid === true && before.excluded) {
+      throw conflict('This sale was excluded with a reason and stays out of the grid.', 'sale_excluded');
+    }
     if (changes.coverPhotoId !== undefined) {
       const [photo] = await tx.select({ id: photos.id }).from(photos).where(and(eq(photos.id, changes.coverPhotoId), eq(photos.saleId, saleId), isNull(photos.deletedAt)));
       if (!photo) throw badRequest('The cover must be one of this sale’s photos.', { coverPhotoId: 'Not a photo of this sale.' });
@@ -52,10 +57,12 @@ export async function updateSale(user: SessionUser, assignmentId: number, saleId
       .where(and(eq(sales.id, saleId), eq(sales.assignmentId, assignmentId), eq(sales.version, version)))
       .returning({ id: sales.id });
     if (!updated) throw staleVersion('This sale');
-    await bumpDataRevision(tx, assignmentId);
     const changed = Object.fromEntries(Object.entries(next).map(([k, v]) => [k, { from: before[k as keyof typeof before], to: v }]));
     await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'sale-updated', entityType: 'sale', entityId: saleId, details: { assignmentId, changed } });
-    return (await findSale(tx, assignmentId, saleId))!;
+    const after = (await findSale(tx, assignmentId, saleId))!;
+    // Last: the bump locks the assignment row until commit, and every edit of the file waits on it.
+    await bumpDataRevision(tx, assignmentId);
+    return after;
   });
 }
 
@@ -70,7 +77,7 @@ export async function deleteSale(user: SessionUser, assignmentId: number, saleId
       .where(and(eq(sales.id, saleId), eq(sales.version, version)))
       .returning({ id: sales.id });
     if (!row) throw staleVersion('This sale');
-    await bumpDataRevision(tx, assignmentId);
     await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'sale-deleted', entityType: 'sale', entityId: saleId, details: { assignmentId } });
+    await bumpDataRevision(tx, assignmentId);
   });
 }
