@@ -26,14 +26,29 @@ export async function computeAnalysis(assignment: AssignmentRow): Promise<Analys
   });
 }
 
+/** Computations under way, by assignment and data revision: requests that arrive while one runs
+ * wait for it instead of starting their own (after an edit, every open page asks at once). */
+const inFlight = new Map<string, Promise<{ analysis: Analysis; json: string }>>();
+
 /** The analysis and its JSON text, from the cache while the assignment's data has not changed. */
 export async function cachedAnalysis(assignment: AssignmentRow): Promise<{ analysis: Analysis; json: string }> {
   const cached = analysisCache.get(assignment.id, assignment.dataRevision);
   if (cached !== undefined) return cached;
-  const analysis = await computeAnalysis(assignment);
-  const entry = { analysis, json: JSON.stringify(analysis) };
-  analysisCache.set(assignment.id, assignment.dataRevision, entry);
-  return entry;
+  const key = `${assignment.id}:${assignment.dataRevision}`;
+  const running = inFlight.get(key);
+  if (running) return running;
+  const computation = (async () => {
+    const analysis = await computeAnalysis(assignment);
+    const entry = { analysis, json: JSON.stringify(analysis) };
+    analysisCache.set(assignment.id, assignment.dataRevision, entry);
+    return entry;
+  })();
+  inFlight.set(key, computation);
+  try {
+    return await computation;
+  } finally {
+    inFlight.delete(key);
+  }
 }
 
 export async function analysisJson(user: SessionUser, assignmentId: number): Promise<string> {

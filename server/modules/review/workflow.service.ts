@@ -28,8 +28,9 @@ export async function recordStatusChange(tx: DbOrTx, assignmentId: number, from:
 
 export async function transition(user: SessionUser, assignmentId: number, input: z.infer<typeof transitionRequest>, appOrigin: string) {
   const rule = TRANSITIONS[input.action];
-  if (user.role !== rule.role) throw forbidden(`Only the ${rule.role} can ${input.action.replace('-', ' ')}.`);
+  // Another firm's assignment is "not found" whatever the action: look it up before judging the role.
   const assignment = await loadAssignmentFor(db, user, assignmentId);
+  if (user.role !== rule.role) throw forbidden(`Only the ${rule.role} can ${input.action.replace('-', ' ')}.`);
   if (!rule.from.includes(assignment.status)) {
     throw conflict(`An assignment that is “${statusLabels[assignment.status].toLowerCase()}” cannot be moved that way.`, 'invalid_transition');
   }

@@ -10,16 +10,18 @@ export interface CsvRow {
 }
 
 /** Streams a CSV file from disk row by row (the file is never held whole in memory). The first
- * line is the header; a byte-order mark and surrounding spaces are dropped from header names. */
-export function scanCsv(filePath: string, onHeaders: (headers: string[]) => void, onRow: (row: CsvRow) => void): Promise<void> {
+ * line is the header; a byte-order mark and surrounding spaces are dropped from header names.
+ * `onRow` may answer 'stop' to end the scan there (the rest of the file is not read). */
+export function scanCsv(filePath: string, onHeaders: (headers: string[]) => void, onRow: (row: CsvRow) => void | 'stop'): Promise<void> {
   return new Promise((resolve, reject) => {
     let rowNumber = 1;
     let headersSeen = false;
-    Papa.parse<Record<string, string>>(createReadStream(filePath, { encoding: 'utf8' }) as unknown as File, {
+    const file = createReadStream(filePath, { encoding: 'utf8' });
+    Papa.parse<Record<string, string>>(file as unknown as File, {
       header: true,
       skipEmptyLines: 'greedy',
       transformHeader: (h) => h.replace(/^\uFEFF/, '').trim(),
-      step(results) {
+      step(results, parser) {
         if (!headersSeen) {
           headersSeen = true;
           onHeaders(results.meta.fields ?? []);
@@ -28,7 +30,10 @@ export function scanCsv(filePath: string, onHeaders: (headers: string[]) => void
         const parseErrors = results.errors.map((e) =>
           e.code === 'TooManyFields' ? 'This row has more cells than the header.' : e.code === 'TooFewFields' ? 'This row has fewer cells than the header.' : `${e.message}.`,
         );
-        onRow({ rowNumber, values: results.data, parseErrors });
+        if (onRow({ rowNumber, values: results.data, parseErrors }) === 'stop') {
+          parser.abort();
+          file.destroy();
+        }
       },
       complete: () => {
         if (!headersSeen) onHeaders([]);

@@ -15,6 +15,9 @@ import { scanCsv } from './csv-scan';
 import { duplicateKey, validateRow } from './row-validation';
 
 const PROBLEMS_LISTED = 500;
+/** Rows one import may hold: far beyond any comparable search, and a bound on the memory and the
+ * single transaction of an import (a 60 MB file could otherwise carry most of a million rows). */
+export const MAX_IMPORT_ROWS = 100_000;
 const PREVIEW_ROWS = 8;
 
 interface Checked {
@@ -26,6 +29,7 @@ interface Checked {
   invalidRows: number;
   problems: ImportProblem[];
   problemCount: number;
+  tooManyRows: boolean;
 }
 
 async function existingKeys(assignmentId: number): Promise<Set<string>> {
@@ -42,7 +46,7 @@ async function checkFile(user: SessionUser, assignmentId: number, filePath: stri
   const [saved] = await db.select().from(importMappings).where(eq(importMappings.userId, user.id));
   const seen = await existingKeys(assignmentId);
   const today = new Date().toISOString().slice(0, 10);
-  const result: Checked = { headers: [], mapping: {}, previewRows: [], totalRows: 0, accepted: [], invalidRows: 0, problems: [], problemCount: 0 };
+  const result: Checked = { headers: [], mapping: {}, previewRows: [], totalRows: 0, accepted: [], invalidRows: 0, problems: [], problemCount: 0, tooManyRows: false };
   const report = (list: ImportProblem[]) => {
     result.invalidRows++;
     result.problemCount += list.length;
@@ -58,10 +62,15 @@ async function checkFile(user: SessionUser, assignmentId: number, filePath: stri
       }
     },
     (row) => {
+      if (result.totalRows === MAX_IMPORT_ROWS) {
+        result.tooManyRows = true;
+        return 'stop';
+      }
       result.totalRows++;
       if (result.previewRows.length < PREVIEW_ROWS) result.previewRows.push(row.values as Record<string, string>);
       const joined = Object.values(row.values).join('');
       if (joined.includes('\uFFFD')) return report([{ row: row.rowNumber, field: 'File', message: 'This row is not UTF-8 text. Save the file as “CSV UTF-8” and try again.' }]);
+      if (joined.includes('\u0000')) return report([{ row: row.rowNumber, field: 'File', message: 'This row holds a NUL character, which no text field can store. Save the file again as CSV.' }]);
       if (row.parseErrors.length) return report(row.parseErrors.map((message) => ({ row: row.rowNumber, field: 'File', message })));
       const checked = validateRow(row.values, result.mapping, row.rowNumber, today);
       if (!checked.ok) return report(checked.problems);
@@ -74,6 +83,10 @@ async function checkFile(user: SessionUser, assignmentId: number, filePath: stri
     },
   );
   if (result.headers.length === 0) throw badRequest('The file is empty: it needs a header row and at least one sale.', { file: 'Empty file.' });
+  if (result.tooManyRows) {
+    const limit = MAX_IMPORT_ROWS.toLocaleString('en-US');
+    throw unprocessable(`This file has more than ${limit} rows; Compline imports up to ${limit} sales at a time. Split it into smaller files. Nothing was imported.`, { file: 'Too many rows.' });
+  }
   return result;
 }
 

@@ -4,6 +4,7 @@ import { allow } from '../../http/access';
 import { parse } from '../../http/validate';
 import { saleCreate, saleUpdate } from '../../contracts/sales';
 import * as service from './sales.service';
+import { salesCsv } from './sales-export';
 
 export const salesRouter = Router();
 
@@ -13,6 +14,15 @@ const assignmentIdOnly = ids.pick({ id: true });
 salesRouter.get('/assignments/:id/sales', allow('appraiser', 'reviewer', 'admin'), async (req, res) => {
   const { id } = parse(assignmentIdOnly, req.params);
   res.json(await service.listAssignmentSales(req.auth!.user, id));
+});
+
+/** The sales as a spreadsheet file; formula-like text is neutralised (see sales-export.ts). */
+salesRouter.get('/assignments/:id/sales.csv', allow('appraiser', 'reviewer', 'admin'), async (req, res) => {
+  const { id } = parse(assignmentIdOnly, req.params);
+  const { sales } = await service.listAssignmentSales(req.auth!.user, id);
+  res
+    .set({ 'Content-Type': 'text/csv; charset=utf-8', 'Content-Disposition': `attachment; filename="compline-sales-${id}.csv"`, 'Cache-Control': 'private, no-store' })
+    .send(salesCsv(sales));
 });
 
 salesRouter.post('/assignments/:id/sales', allow('appraiser'), async (req, res) => {

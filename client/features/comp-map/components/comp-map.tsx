@@ -1,6 +1,8 @@
 import 'maplibre-gl/dist/maplibre-gl.css';
 import '../comp-map.css';
 import { useEffect, useMemo, useRef, useState } from 'react';
+import { useQuery } from '@tanstack/react-query';
+import { configQueries } from '../api/config-queries';
 import { CLUSTER_ABOVE, type CompMapProps } from '../map-types';
 import { useAreaLabels } from '../hooks/use-area-labels';
 import { useMaplibre } from '../hooks/use-maplibre';
@@ -24,7 +26,10 @@ export function CompMapCanvas(props: CompMapProps) {
   const containerRef = useRef<HTMLDivElement>(null);
   // The first view frames the subject's outer ring (as far as the town goes), or the whole town.
   const [initialBounds] = useState(() => (subject ? withinTown(outerRingBounds(subject, areaUnit)) : TOWN_BOUNDS));
-  const { map, colours, failure } = useMaplibre(containerRef, initialBounds);
+  const config = useQuery(configQueries.installation());
+  // An unreachable config falls back to the shipped basemap rather than leaving the map blank.
+  const styleUrl = config.isPending ? undefined : (config.data?.mapStyleUrl ?? null);
+  const { map, colours, failure } = useMaplibre(containerRef, initialBounds, styleUrl);
   const clustered = sales.length > CLUSTER_ABOVE;
   const selected = useMemo(() => sales.find((s) => s.id === selectedSaleId) ?? null, [sales, selectedSaleId]);
   // Clustered, only the selected sale gets an HTML marker (so that it can still be dragged).

@@ -15,19 +15,21 @@ export interface MapHandle {
 }
 
 /** Creates the map once in the container and removes it when the component goes. `map` is set
- * after the style has loaded, so every layer added by the caller lands on a complete style. */
-export function useMaplibre(containerRef: RefObject<HTMLDivElement | null>, initialBounds: [number, number, number, number]): MapHandle {
+ * after the style has loaded, so every layer added by the caller lands on a complete style.
+ * `styleUrl`: the installation's self-hosted style (MAP_STYLE_URL), null for the shipped basemap,
+ * undefined while it is not known yet (the map waits). */
+export function useMaplibre(containerRef: RefObject<HTMLDivElement | null>, initialBounds: [number, number, number, number], styleUrl: string | null | undefined): MapHandle {
   const [handle, setHandle] = useState<MapHandle>({ map: null, colours: null, failure: null });
 
   useEffect(() => {
     const container = containerRef.current;
-    if (!container) return;
+    if (!container || styleUrl === undefined) return;
     const colours = readMapColours(container);
     let map: maplibregl.Map;
     try {
       map = new maplibregl.Map({
         container,
-        style: basemapStyle(colours),
+        style: styleUrl ?? basemapStyle(colours),
         bounds: initialBounds,
         fitBoundsOptions: { padding: 28 },
         maxBounds: panLimits(),
@@ -58,9 +60,10 @@ export function useMaplibre(containerRef: RefObject<HTMLDivElement | null>, init
       setHandle({ map: null, colours: null, failure: null });
       map.remove();
     };
-    // The map is made once; later bounds are set by the controls, not by re-creating it.
+    // The map is made once the style is known; later bounds are set by the controls, not by
+    // re-creating it.
     // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, []);
+  }, [styleUrl]);
 
   return handle;
 }

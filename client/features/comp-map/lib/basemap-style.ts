@@ -3,8 +3,8 @@ import type { MapColours } from './map-colours';
 
 export type StyleSpecification = Exclude<MapOptions['style'], string | undefined>;
 
-/** The shipped Port Ellery basemap (public/basemap). A self-hosted vector style (MAP_STYLE_URL) is
- * not wired on the client yet: the demo town ships as GeoJSON and needs no network. */
+/** The shipped Port Ellery basemap (public/basemap), used unless the installation sets a self-hosted
+ * vector style (MAP_STYLE_URL, read through GET /api/config). It needs no network. */
 const BASEMAP = '/basemap';
 
 /** The extent of the shipped basemap, [west, south, east, north]. */

@@ -1,0 +1,3 @@
+import { z } from 'zod';
+
+export const configResponse = z.object({ mapStyleUrl: z.string().url().nullable() });
