@@ -242,7 +242,8 @@ describe('the review of planted outliers, in a real browser', () => {
     await review.getByLabel('What needs revising (required)').fill(note);
     await review.getByRole('button', { name: 'Return for revisions' }).click();
     await expect.poll(() => review.getByTestId('assignment-status').innerText()).toBe('Revisions requested');
-    await expect(review.getByRole('list', { name: 'Status timeline' }).innerText()).resolves.toContain(note);
+    // The timeline refetches after the status: wait for it rather than read it once.
+    await expect.poll(() => review.getByRole('list', { name: 'Status timeline' }).innerText()).toContain(note);
     await expect(review.getByRole('button', { name: 'Approve', exact: true }).count()).resolves.toBe(0);
 
     const work = await appraiserBrowser.context.newPage();
