@@ -6,9 +6,16 @@ import { saleTypeLabels, type SaleType } from '../contracts/sales';
 import { median } from 'simple-statistics';
 import { describeFlags } from './flag-reasons';
 import { summariseFit } from './fit-summary';
-import { fitLine, type FitPoint } from './regression';
+import { fitColumns, fitScratch } from './fit-columns';
+import type { FitPoint } from './regression';
 import { revealMaskedOutliers } from './masked-outliers';
-import { fitTrend, monthsBefore, timeAdjustedPrice } from './time-trend';
+import { flagsOf, HAS_EXTERNAL, HAS_INTERNAL, OUTLIER } from './point-diagnostics';
+import { compareNames, groupBy, pricesById } from './sale-groups';
+import { fitTrendPoints, monthsBetween, timeAdjustedPrice, utcDayMs, type TrendPoint } from './time-trend';
+
+type AnalysedPoint = GroupAnalysis['points'][number];
+/** Any of the four flag bits of a point's state (point-diagnostics.ts). */
+const FLAGS = 15;
 
 export interface AnalysisSale {
   id: number;
@@ -86,35 +93,77 @@ export function formatArea(v: number, unit: 'sqft' | 'sqm'): string {
   return `${Math.round(v).toLocaleString('en-US')} ${unit === 'sqft' ? 'ft²' : 'm²'}`;
 }
 
-function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSale[], prices: Map<number, number>, x0: number | null, unit: 'sqft' | 'sqm'): GroupAnalysis {
-  const fit = fitLine(
-    sales.map((s) => ({ x: s.floorArea, y: prices.get(s.id)! })),
-    x0 !== null ? { x0 } : {},
-  );
+/** Each usable sale's figures, read from the sale objects once, in order (indexed like `usable`). */
+interface SaleColumns {
+  usable: readonly AnalysisSale[];
+  ids: number[];
+  floorArea: Float64Array;
+  /** 1 where the floor area is a finite number. */
+  floorAreaOk: Uint8Array;
+  /** The prices the floor-area fits use (time-adjusted or as sold). */
+  prices: Float64Array;
+}
+
+/**
+ * The group's sales are `usable[members[k]]`. The fit reads floor area and price from the columns
+ * into its scratch columns (fit-columns.ts), and each point object is built once, with its sale
+ * id, from the fit's columns.
+ */
+function analyseGroup(name: string, pooled: boolean, sales: SaleColumns, members: readonly number[], x0: number | null, unit: 'sqft' | 'sqm'): GroupAnalysis {
+  const n = members.length;
+  const saleAt = (k: number) => sales.usable[members[k]];
+  const { xs, ys } = fitScratch(n);
+  let bad = -1;
+  for (let k = 0; k < n; k++) {
+    const i = members[k];
+    const y = sales.prices[i];
+    if (bad < 0 && !(sales.floorAreaOk[i] && Number.isFinite(y))) bad = k;
+    xs[k] = sales.floorArea[i];
+    ys[k] = y;
+  }
+  const fit = fitColumns(n, bad, x0 !== null ? { x0 } : {});
   if (!fit.ok) {
     return { neighbourhood: name, pooled, n: fit.n, fit: null, refusal: { reason: fit.reason, message: fit.message }, gate: null, prediction: null, points: [], flagged: [], warnings: [fit.message] };
   }
-  const points = fit.points.map((p, i) => ({ saleId: sales[i].id, ...p }));
-  const context = { n: fit.n, xMin: fit.xMin, xMax: fit.xMax };
-  const xMedian = median(points.map((p) => p.x));
+  const { residuals, points: columns } = fitScratch(n);
+  const points = new Array<AnalysedPoint>(n);
+  const firstPassOutliers: number[] = [];
+  let anyFlag = false;
+  for (let k = 0; k < n; k++) {
+    const state = columns.state[k];
+    const hasInternal = (state & HAS_INTERNAL) !== 0;
+    points[k] = {
+      saleId: sales.ids[members[k]], x: xs[k], y: ys[k], fitted: columns.fitted[k], residual: residuals[k], leverage: columns.leverage[k],
+      internallyStudentized: hasInternal ? columns.internal[k] : null,
+      externallyStudentized: state & HAS_EXTERNAL ? columns.external[k] : null,
+      cooksDistance: hasInternal ? columns.cooks[k] : null,
+      flags: flagsOf(state),
+    };
+    if (state & OUTLIER) firstPassOutliers.push(k);
+    if (state & FLAGS) anyFlag = true;
+  }
   // Flags are judged within a neighbourhood: across neighbourhoods, price levels differ by design.
-  const flagged: FlaggedSale[] = points
-    .map((p, i) => ({ p, sale: sales[i] }))
-    .filter(({ p }) => p.flags.length > 0 && !pooled)
-    .map(({ p, sale }) => flaggedSale(sale, p, `${describeFlags(p, context)}${areaWords(p.x, xMedian, unit)}`, []));
-  const firstPassOutliers = points.flatMap((p, i) => (p.flags.includes('outlier') ? [i] : []));
-  for (const hidden of pooled ? [] : revealMaskedOutliers(points, firstPassOutliers)) {
-    const sale = sales[hidden.index];
-    const names = hidden.setAside.map((i) => sales[i].address).join(', ');
+  const flagged: FlaggedSale[] = [];
+  if (!pooled && anyFlag) {
+    const context = { n: fit.n, xMin: fit.xMin, xMax: fit.xMax };
+    const xMedian = median(points.map((p) => p.x));
+    for (let k = 0; k < n; k++) {
+      const p = points[k];
+      if (p.flags.length > 0) flagged.push(flaggedSale(saleAt(k), p, `${describeFlags(p, context)}${areaWords(p.x, xMedian, unit)}`, []));
+    }
+  }
+  for (const hidden of pooled ? [] : revealMaskedOutliers(points, firstPassOutliers, points)) {
+    const sale = saleAt(hidden.index);
+    const names = hidden.setAside.map((k) => saleAt(k).address).join(', ');
     const pct = hidden.point.fitted > 0 ? Math.round((Math.abs(hidden.point.residual) / hidden.point.fitted) * 100) : 0;
     const words = `once ${names} ${hidden.setAside.length === 1 ? 'is' : 'are'} set aside, it sold ${pct}% ${hidden.point.residual < 0 ? 'below' : 'above'} the line, far outside the scatter of the other sales (the outlier${hidden.setAside.length === 1 ? '' : 's'} had hidden it)`;
     const existing = flagged.find((f) => f.saleId === sale.id);
     if (existing) {
       existing.reason = `${existing.reason} Also: ${words}.`;
-      existing.revealedWhenSetAside = hidden.setAside.map((i) => sales[i].id);
+      existing.revealedWhenSetAside = hidden.setAside.map((k) => saleAt(k).id);
       if (!existing.flags.includes('outlier')) existing.flags = [...existing.flags, 'outlier'];
     } else {
-      flagged.push(flaggedSale(sale, { ...hidden.point, flags: ['outlier'] }, words, hidden.setAside.map((i) => sales[i].id)));
+      flagged.push(flaggedSale(sale, { ...hidden.point, flags: ['outlier'] }, words, hidden.setAside.map((k) => saleAt(k).id)));
     }
   }
   flagged.sort((a, b) => Math.abs(b.externallyStudentized ?? 0) - Math.abs(a.externallyStudentized ?? 0));
@@ -129,40 +178,54 @@ function analyseGroup(name: string, pooled: boolean, sales: readonly AnalysisSal
   return { neighbourhood: name, pooled, n: fit.n, fit: summariseFit(fit), refusal: null, gate, prediction: fit.prediction ?? null, points, flagged, warnings };
 }
 
-function groupBy(sales: readonly AnalysisSale[]): Map<string, AnalysisSale[]> {
-  const groups = new Map<string, AnalysisSale[]>();
-  for (const s of sales) {
-    const key = s.neighbourhood ?? NO_NEIGHBOURHOOD;
-    let list = groups.get(key);
-    if (!list) groups.set(key, (list = []));
-    list.push(s);
-  }
-  return groups;
-}
-
 export function analyseMarket(input: AnalysisInput): Analysis {
-  const usable = input.sales.filter((s) => !s.excluded);
-  const byNeighbourhood = groupBy(usable);
-  const names = [...byNeighbourhood.keys()].sort((a, b) => (a === input.subject.neighbourhood ? -1 : b === input.subject.neighbourhood ? 1 : a.localeCompare(b)));
-  const toTrendSales = (list: readonly AnalysisSale[]) => list.map((s) => ({ saleId: s.id, salePrice: s.salePrice, saleDate: s.saleDate, floorArea: s.floorArea }));
+  const usable: AnalysisSale[] = [];
+  const excluded: Analysis['excluded'] = [];
+  for (const s of input.sales) {
+    if (!s.excluded) usable.push(s);
+    else excluded.push({ saleId: s.id, address: s.address, reason: s.exclusionReason });
+  }
+  const { members: byNeighbourhood, groupOf } = groupBy(usable, NO_NEIGHBOURHOOD);
+  const subjectName = input.subject.neighbourhood;
+  const names = [...byNeighbourhood.keys()].sort((a, b) => (a === subjectName ? -1 : b === subjectName ? 1 : compareNames(a, b)));
 
-  const trends: Trend[] = names.map((name) => fitTrend(name, toTrendSales(byNeighbourhood.get(name)!), input.effectiveDate));
-  const pooledTrend = fitTrend(POOLED, toTrendSales(usable), input.effectiveDate);
+  // Each sale's figures, read once and in order: the later passes go neighbourhood by
+  // neighbourhood, and would otherwise read the sale objects scattered through memory, many times.
+  const n = usable.length;
+  const effectiveMs = utcDayMs(input.effectiveDate);
+  const ids = new Array<number>(n);
+  const salePrice = new Float64Array(n);
+  const floorArea = new Float64Array(n);
+  const floorAreaOk = new Uint8Array(n);
+  const pricePerArea = new Float64Array(n);
+  const months = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const s = usable[i];
+    ids[i] = s.id;
+    salePrice[i] = s.salePrice;
+    floorArea[i] = s.floorArea;
+    floorAreaOk[i] = Number.isFinite(s.floorArea) ? 1 : 0;
+    pricePerArea[i] = s.salePrice / s.floorArea;
+    months[i] = monthsBetween(utcDayMs(s.saleDate), effectiveMs);
+  }
+  const trendPoint = (i: number): TrendPoint => ({ saleId: ids[i], monthsBefore: months[i], pricePerArea: pricePerArea[i] });
+  const trends: Trend[] = names.map((name) => fitTrendPoints(name, byNeighbourhood.get(name)!.map(trendPoint)));
+  const everyone = new Array<number>(n);
+  for (let i = 0; i < n; i++) everyone[i] = i;
+  const pooledTrend = fitTrendPoints(POOLED, everyone.map(trendPoint));
   trends.push(pooledTrend);
 
   // Prices used by the floor-area fits: time-adjusted with the sale's own neighbourhood trend (the
   // pooled one where its neighbourhood has none) when the appraiser turns the adjustment on.
-  const prices = new Map<number, number>();
-  for (const [i, name] of names.entries()) {
-    const rate = trends[i].monthlyRate ?? pooledTrend.monthlyRate;
-    for (const s of byNeighbourhood.get(name)!) {
-      prices.set(s.id, input.timeAdjustment ? timeAdjustedPrice(s.salePrice, monthsBefore(s.saleDate, input.effectiveDate), rate) : s.salePrice);
-    }
-  }
-
+  const rateOf = new Map(names.map((name, g) => [name, trends[g].monthlyRate ?? pooledTrend.monthlyRate]));
+  const rates = [...byNeighbourhood.keys()].map((name) => rateOf.get(name)!); // in groupOf's order
+  const prices = new Float64Array(n);
+  for (let i = 0; i < n; i++) prices[i] = input.timeAdjustment ? timeAdjustedPrice(salePrice[i], months[i], rates[groupOf[i]]) : salePrice[i];
+  const adjustedPrices = pricesById(usable, prices, names.map((name) => byNeighbourhood.get(name)!));
+  const columns: SaleColumns = { usable, ids, floorArea, floorAreaOk, prices };
   const x0 = input.subject.floorArea;
-  const groups = names.map((name) => analyseGroup(name, false, byNeighbourhood.get(name)!, prices, name === input.subject.neighbourhood ? x0 : null, input.areaUnit));
-  groups.push(analyseGroup(POOLED, true, usable, prices, x0, input.areaUnit));
+  const groups = names.map((name) => analyseGroup(name, false, columns, byNeighbourhood.get(name)!, name === subjectName ? x0 : null, input.areaUnit));
+  groups.push(analyseGroup(POOLED, true, columns, everyone, x0, input.areaUnit));
 
   const warnings: string[] = [];
   const subjectTrend = trends.find((t) => t.neighbourhood === input.subject.neighbourhood)?.fit;
@@ -184,8 +247,8 @@ export function analyseMarket(input: AnalysisInput): Analysis {
     subjectGroup: input.subject.neighbourhood && byNeighbourhood.has(input.subject.neighbourhood) ? input.subject.neighbourhood : null,
     groups,
     trends,
-    excluded: input.sales.filter((s) => s.excluded).map((s) => ({ saleId: s.id, address: s.address, reason: s.exclusionReason })),
-    adjustedPrices: Object.fromEntries([...prices].map(([id, p]) => [String(id), p])),
+    excluded,
+    adjustedPrices,
     warnings,
   };
 }

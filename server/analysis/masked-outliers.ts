@@ -3,7 +3,12 @@
 // extreme outlier, refits, and repeats while an outlier remains: each sale that stands out only
 // after others were set aside is reported with those sales and with the refit's own figures. It adds
 // questions; it never changes the fit.
-import { fitLine, type FitPoint } from './regression';
+//
+// The refits run on the scratch columns of fit-columns.ts: only the one revealed point of a round
+// becomes an object.
+import { fitColumns, fitScratch } from './fit-columns';
+import { HAS_EXTERNAL, pointAt } from './point-diagnostics';
+import type { FitPoint } from './regression';
 
 export const OUTLIER_T = 3;
 const MAX_ROUNDS = 6;
@@ -15,23 +20,66 @@ export interface RevealedOutlier {
   setAside: number[];
 }
 
-export function revealMaskedOutliers(points: ReadonlyArray<{ x: number; y: number }>, firstPass: readonly number[]): RevealedOutlier[] {
+/**
+ * `fullFit`, when given, is fitLine(points).points: the first round's fit is then not repeated.
+ * It must be the fit of exactly these points.
+ */
+export function revealMaskedOutliers(
+  points: ReadonlyArray<{ x: number; y: number }>,
+  firstPass: readonly number[],
+  fullFit?: ReadonlyArray<{ externallyStudentized: number | null }>,
+): RevealedOutlier[] {
   if (firstPass.length === 0) return [];
   const alreadyFlagged = new Set(firstPass);
   const setAside: number[] = [];
   const revealed: RevealedOutlier[] = [];
+  const isSetAside = new Uint8Array(points.length);
+  const kept = new Int32Array(points.length);
   for (let round = 0; round < MAX_ROUNDS; round++) {
-    const kept = points.map((_, i) => i).filter((i) => !setAside.includes(i));
-    const fit = fitLine(kept.map((i) => points[i]));
-    if (!fit.ok) break;
-    let worst: { p: FitPoint; index: number } | null = null;
-    for (const [k, p] of fit.points.entries()) {
-      const t = Math.abs(p.externallyStudentized ?? 0);
-      if (t > OUTLIER_T && (!worst || t > Math.abs(worst.p.externallyStudentized ?? 0))) worst = { p, index: kept[k] };
+    let worstIndex = -1;
+    let worstT = 0;
+    if (round === 0 && fullFit) {
+      for (let i = 0; i < fullFit.length; i++) {
+        const t = Math.abs(fullFit[i].externallyStudentized ?? 0);
+        if (t > OUTLIER_T && (worstIndex < 0 || t > worstT)) {
+          worstIndex = i;
+          worstT = t;
+        }
+      }
+      if (worstIndex < 0) break;
+      setAside.push(worstIndex);
+      isSetAside[worstIndex] = 1;
+      continue;
     }
-    if (!worst) break;
-    if (round > 0 && !alreadyFlagged.has(worst.index)) revealed.push({ index: worst.index, point: worst.p, setAside: [...setAside] });
-    setAside.push(worst.index);
+    let n = 0;
+    const { xs, ys } = fitScratch(points.length);
+    let bad = -1;
+    for (let i = 0; i < points.length; i++) {
+      if (isSetAside[i]) continue;
+      const { x, y } = points[i];
+      if (bad < 0 && !(Number.isFinite(x) && Number.isFinite(y))) bad = n;
+      xs[n] = x;
+      ys[n] = y;
+      kept[n++] = i;
+    }
+    const fit = fitColumns(n, bad);
+    if (!fit.ok) break;
+    const { residuals, points: columns } = fitScratch(n);
+    let worstK = -1;
+    for (let k = 0; k < n; k++) {
+      const t = columns.state[k] & HAS_EXTERNAL ? Math.abs(columns.external[k]) : 0;
+      if (t > OUTLIER_T && (worstK < 0 || t > worstT)) {
+        worstK = k;
+        worstT = t;
+      }
+    }
+    if (worstK < 0) break;
+    worstIndex = kept[worstK];
+    if (round > 0 && !alreadyFlagged.has(worstIndex)) {
+      revealed.push({ index: worstIndex, point: pointAt(xs, ys, residuals, columns, worstK), setAside: [...setAside] });
+    }
+    setAside.push(worstIndex);
+    isSetAside[worstIndex] = 1;
   }
   return revealed;
 }
