@@ -1,3 +1,4 @@
+import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { env } from './env';
 import { db, pool } from '../db/client';
@@ -36,14 +37,17 @@ async function main() {
 
   let shuttingDown = false;
   const app = createApp();
-  const server = app.listen(env.PORT, '0.0.0.0', () => {
+  // Once shutdown begins, a request that still arrives (on a kept-alive connection) is refused with
+  // 503 and the connection closed; requests already in flight finish.
+  const server = http.createServer((req, res) => {
+    if (!shuttingDown) return app(req, res);
+    res.writeHead(503, { 'Content-Type': 'application/json', Connection: 'close' });
+    res.end(JSON.stringify({ error: { code: 'shutting_down', message: 'Compline is restarting. Try again in a moment.' } }));
+  });
+  server.listen(env.PORT, '0.0.0.0', () => {
     const { port } = server.address() as AddressInfo;
     console.log(`Compline is listening on http://127.0.0.1:${port}`);
     fakePayments?.setWebhookUrl(`http://127.0.0.1:${port}/api/payments/webhook`);
-  });
-  // While shutting down, requests on kept-alive connections are told to go elsewhere.
-  server.on('request', (_req, res) => {
-    if (shuttingDown) res.setHeader('Connection', 'close');
   });
 
   const shutdown = (signal: string) => {
@@ -60,6 +64,8 @@ async function main() {
       process.exit(0);
     });
     server.closeIdleConnections();
+    // Connections that were busy when the signal came are closed as soon as they go idle.
+    setInterval(() => server.closeIdleConnections(), 100).unref();
     setTimeout(() => process.exit(1), 15_000).unref();
   };
   process.on('SIGTERM', () => shutdown('SIGTERM'));

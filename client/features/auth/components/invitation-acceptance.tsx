@@ -1,4 +1,4 @@
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { hashKey, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useNavigate } from 'react-router-dom';
@@ -23,7 +23,10 @@ export function InvitationAcceptance({ token }: { token: string }) {
   const accept = useMutation({
     mutationFn: authRequests.acceptInvitation,
     onSuccess: async () => {
-      queryClient.removeQueries();
+      // Forget whatever belonged to the signed-out visitor, except the invitation this page still
+      // shows: removing it would refetch a token that is now used (400).
+      const invitationKey = authQueries.invitation(token).queryKey;
+      queryClient.removeQueries({ predicate: (query) => query.queryHash !== hashKey(invitationKey) });
       await queryClient.fetchQuery(authQueries.me());
       await navigate('/', { replace: true });
     },
