@@ -14,7 +14,13 @@ if [ -z "${DATABASE_URL:-}" ]; then
   ensure_database "$PGPORT" compline
   export DATABASE_URL="postgres://postgres@127.0.0.1:$PGPORT/compline"
 fi
-cleanup() { trap - INT TERM EXIT; kill 0 2>/dev/null || true; [ -n "$PGDATA_DIR" ] && stop_cluster "$PGDATA_DIR"; }
+# Stop the API and Vite (this script's own jobs), wait for them, then stop PostgreSQL.
+cleanup() {
+  trap - INT TERM EXIT
+  kill $(jobs -p) 2>/dev/null || true
+  wait 2>/dev/null || true
+  if [ -n "$PGDATA_DIR" ]; then stop_cluster "$PGDATA_DIR"; fi
+}
 trap cleanup EXIT; trap 'exit 130' INT; trap 'exit 143' TERM
 npx tsx db/seed/run.ts
 npx tsx watch server/index.ts &
