@@ -1,7 +1,7 @@
 import { lazy, Suspense } from 'react';
 import type { ReportSnapshot } from '@contracts/report';
 import { LoadingPanel } from '../../../components/ui/query-states';
-import { subjectGroup, subjectTrend } from '../lib/report-facts';
+import { subjectGroup, subjectTrend } from '@contracts/report-facts';
 import type { ReportFormat } from '../lib/report-format';
 
 const ReportCharts = lazy(() => import('./report-charts'));

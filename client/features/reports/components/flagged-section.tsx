@@ -1,5 +1,5 @@
 import type { ReportSnapshot } from '@contracts/report';
-import { handledSales, type HandledSale, type Outcome } from '../lib/report-facts';
+import { handledSales, type HandledSale, type Outcome } from '@contracts/report-facts';
 import { formatMoment, type ReportFormat } from '../lib/report-format';
 import { flagWords } from '../lib/feature-words';
 

@@ -1,7 +1,7 @@
 import { CartesianGrid, DefaultZIndexes, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZIndexLayer } from 'recharts';
 import type { FitSummary, GroupAnalysis, Trend } from '@contracts/analysis';
 import type { ReportSnapshot } from '@contracts/report';
-import { handledSales } from '../lib/report-facts';
+import { handledSales } from '@contracts/report-facts';
 import { fittedAt, niceTicks, predictionBand, predictionHalfWidth } from '../lib/prediction-band';
 import type { ReportFormat } from '../lib/report-format';
 import { BandLayer, SaleDot, SubjectEstimate, type ChartSale } from './chart-layers';

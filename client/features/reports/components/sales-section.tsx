@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import type { ReportSnapshot } from '@contracts/report';
 import { conditionWords, qualityWords } from '../../../lib/rating-scales';
-import { coverPhotoId, gridSales, type SnapshotSale } from '../lib/report-facts';
+import { coverPhotoId, gridSales, type SnapshotSale } from '@contracts/report-facts';
 import { formatDay, type ReportFormat } from '../lib/report-format';
 import { saleTypeWords } from '../lib/feature-words';
 import { ReportPhoto } from './report-photo';

@@ -1,6 +1,6 @@
 import type { ReactNode } from 'react';
 import type { ReportSnapshot } from '@contracts/report';
-import { subjectGroup } from '../lib/report-facts';
+import { subjectGroup } from '@contracts/report-facts';
 import { formatDay, type ReportFormat } from '../lib/report-format';
 import { ValueScale } from './value-scale';
 

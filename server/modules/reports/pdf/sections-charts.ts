@@ -3,14 +3,14 @@
 import { scatterLegend } from './chart-legend';
 import { area, decimal, money, perArea } from './format';
 import { ensureSpace, facts, list, newPage, paragraph, sectionTitle, subheading, type ReportContext } from './layout';
-import { flaggedSaleIds, subjectFit, subjectTrend } from './report-figures';
+import { flaggedSaleIds, subjectGroup, subjectTrend } from '../../../contracts/report-facts';
 import { scatterChart } from './scatter-chart';
 import { INK, PAGE } from './theme';
 import { trendChart } from './trend-chart';
 
 function fitFacts(ctx: ReportContext): void {
   const { doc, units } = ctx;
-  const { group } = subjectFit(ctx.snapshot);
+  const group = subjectGroup(ctx.snapshot);
   const fit = group?.fit;
   if (!group || !fit) return;
   const pValue = fit.slopePValue === null ? '—' : fit.slopePValue < 0.0001 ? '< 0.0001' : decimal(fit.slopePValue, 4);
@@ -40,7 +40,7 @@ function fitFacts(ctx: ReportContext): void {
 
 export function chartsSection(ctx: ReportContext): void {
   const { doc, snapshot, units } = ctx;
-  const { group } = subjectFit(snapshot);
+  const group = subjectGroup(snapshot);
   if (doc.y > PAGE.top + 200) newPage(doc);
   sectionTitle(
     doc,

@@ -3,7 +3,7 @@
 import { FONT } from './fonts';
 import { shortDate } from './format';
 import { ensureSpace, newPage, paragraph, place, rule, sectionTitle, textHeight, textWidth, type ReportContext } from './layout';
-import { handledSales, type HandledSale, type Outcome } from './report-figures';
+import { handledSales, type HandledSale, type Outcome } from '../../../contracts/report-facts';
 import { CONTENT_WIDTH, FLAG_RING, INK, PAGE, STATE } from './theme';
 
 const OUTCOME: Record<Outcome, { label: string; colour: string; wash: string; fallback: string }> = {

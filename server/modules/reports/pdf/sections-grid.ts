@@ -5,7 +5,7 @@ import { lineItemFeatures } from '../../../contracts/grid';
 import { FONT, printable } from './fonts';
 import { money, perArea, percent, signedMoney, signedPercent } from './format';
 import { ensureSpace, facts, list, paragraph, place, sectionTitle, subheading, textHeight, type ReportContext } from './layout';
-import { flaggedSaleIds } from './report-figures';
+import { flaggedSaleIds } from '../../../contracts/report-facts';
 import { table, type Column, type TableRow } from './table';
 import { ACCENT, CONTENT_WIDTH, INK, PAGE, STATE } from './theme';
 

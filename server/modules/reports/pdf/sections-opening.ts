@@ -4,7 +4,7 @@
 import { FONT } from './fonts';
 import { decimal, longDate, money, orDash } from './format';
 import { eyebrow, facts, oneLine, place, rule, textHeight, textWidth, type ReportContext } from './layout';
-import { subjectFit } from './report-figures';
+import { subjectGroup } from '../../../contracts/report-facts';
 import { ACCENT, CONTENT_WIDTH, INK, PAGE, STATE } from './theme';
 import { valueRuler } from './value-ruler';
 
@@ -46,8 +46,8 @@ function addressBlock(ctx: ReportContext): void {
 function valuePanel(ctx: ReportContext): void {
   const { doc, snapshot, units } = ctx;
   const top = doc.y;
-  const fit = subjectFit(snapshot);
-  const regression = snapshot.grid.regression ?? (fit.group?.prediction ? { ...fit.group.prediction, neighbourhood: fit.group.neighbourhood } : null);
+  const group = subjectGroup(snapshot);
+  const regression = snapshot.grid.regression ?? (group?.prediction ? { ...group.prediction, neighbourhood: group.neighbourhood } : null);
   const hasRuler = regression !== null || snapshot.grid.adjustedRange !== null || snapshot.opinionOfValue !== null;
   const height = hasRuler ? 142 : 92;
   doc.save().rect(PAGE.left, top, CONTENT_WIDTH, height).fill(INK.tint).restore();
@@ -67,14 +67,14 @@ function valuePanel(ctx: ReportContext): void {
   if (regression) {
     place(doc, money(regression.estimate, units.currency), rx, top + 26, { font: FONT.figuresMedium, size: 16, width: 230 });
     place(doc, `95% prediction interval ${money(regression.lower, units.currency)} to ${money(regression.upper, units.currency)}`, rx, top + 47, { font: FONT.figures, size: 7.8, colour: INK.ink, width: 236 });
-    const stats = `R² ${decimal(fit.group?.fit?.rSquared ?? null)}  ·  n = ${fit.group?.n ?? 0}  ·  ${regression.neighbourhood}`;
+    const stats = `R² ${decimal(group?.fit?.rSquared ?? null)}  ·  n = ${group?.n ?? 0}  ·  ${regression.neighbourhood}`;
     place(doc, stats, rx, top + 59, { font: FONT.figures, size: 7.8, colour: INK.soft, width: 236 });
   } else {
-    const why = fit.group?.refusal?.message ?? 'No price-on-floor-area fit reached the subject, so there is no estimate to show.';
+    const why = group?.refusal?.message ?? 'No price-on-floor-area fit reached the subject, so there is no estimate to show.';
     place(doc, why, rx, top + 27, { size: 8.5, colour: INK.soft, width: 230 });
-    if (fit.group) place(doc, `R² ${decimal(fit.group.fit?.rSquared ?? null)}  ·  n = ${fit.group.n}`, rx, top + 59, { font: FONT.figures, size: 7.8, colour: INK.soft, width: 230 });
+    if (group) place(doc, `R² ${decimal(group.fit?.rSquared ?? null)}  ·  n = ${group.n}`, rx, top + 59, { font: FONT.figures, size: 7.8, colour: INK.soft, width: 230 });
   }
-  if (fit.group?.prediction?.extrapolated) {
+  if (group?.prediction?.extrapolated) {
     place(doc, 'The subject lies outside the sales’ floor-area range: the estimate extrapolates.', rx, top + 70, { size: 7, colour: STATE.rust, width: 236 });
   }
   if (hasRuler) valueRuler(doc, { left: lx, top: top + 90, width: CONTENT_WIDTH - 40 }, {

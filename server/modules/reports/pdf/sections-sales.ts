@@ -3,7 +3,7 @@
 import { saleTypeLabels } from '../../../contracts/sales';
 import { area, areaSymbol, count, decimal, money, orDash, shortDate } from './format';
 import { facts, paragraph, sectionTitle, subheading, type ReportContext } from './layout';
-import { flaggedSaleIds } from './report-figures';
+import { flaggedSaleIds } from '../../../contracts/report-facts';
 import { table, type Column, type TableRow } from './table';
 import { INK, STATE } from './theme';
 

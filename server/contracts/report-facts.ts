@@ -1,7 +1,10 @@
-import type { GroupAnalysis, Trend } from '@contracts/analysis';
-import type { ReportSnapshot } from '@contracts/report';
+import type { GroupAnalysis, Trend } from './analysis';
+import type { ReportSnapshot } from './report';
 
-/** Facts the report page derives from the frozen snapshot (the same reading as the PDF's). */
+// Facts read from a frozen report snapshot, shared by the report page and the PDF so that both say
+// the same thing: the subject's neighbourhood fit and trend, and what the review did about each
+// flagged or excluded sale.
+
 
 type Query = ReportSnapshot['queries'][number];
 type Message = Query['messages'][number];
@@ -110,4 +113,9 @@ export function gridSales(snapshot: ReportSnapshot) {
     const sale = byId.get(row.saleId);
     return sale ? [{ row, sale, entry: snapshot.grid.entries.find((e) => e.saleId === row.saleId) ?? null, label: String.fromCharCode(65 + index) }] : [];
   });
+}
+
+/** Every sale flagged by a neighbourhood fit (the pooled fit flags nothing by design). */
+export function flaggedSaleIds(snapshot: ReportSnapshot): Set<number> {
+  return new Set(snapshot.analysis.groups.filter((g) => !g.pooled).flatMap((g) => g.flagged.map((f) => f.saleId)));
 }
