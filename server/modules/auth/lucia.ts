@@ -1,28 +1,34 @@
 import { Lucia, TimeSpan } from 'lucia';
-import { DrizzlePostgreSQLAdapter } from '@lucia-auth/adapter-drizzle';
-import { db } from '../../../db/client';
-import { sessions } from '../../../db/schema/auth';
-import { users } from '../../../db/schema/organisations';
+import type { SessionUser } from '../../contracts/auth';
 import { env } from '../../env';
+import { SessionAdapter } from './session-adapter';
 
 // Why lucia v3 although upstream announced its deprecation, and how we would leave it:
 // docs/decisions/002-sessions-with-lucia.md
-const adapter = new DrizzlePostgreSQLAdapter(db, sessions, users);
-
-export const lucia = new Lucia(adapter, {
+export const lucia = new Lucia(new SessionAdapter(), {
   sessionExpiresIn: new TimeSpan(env.SESSION_DAYS, 'd'),
   sessionCookie: {
     name: 'compline_session',
     expires: true,
     attributes: { sameSite: 'lax', secure: false, path: '/' },
   },
-  getUserAttributes: (a) => ({ active: a.active }),
+  getUserAttributes: (a) => ({
+    email: a.email,
+    name: a.name,
+    role: a.role,
+    active: a.active,
+    organisationId: a.organisationId,
+    organisationName: a.organisationName,
+    organisationKind: a.organisationKind,
+  }),
 });
 
 declare module 'lucia' {
   interface Register {
     Lucia: typeof lucia;
     UserId: number;
-    DatabaseUserAttributes: { active: boolean };
+    /** What SessionAdapter.getSessionAndUser reads with the session: the signed-in user as
+     * req.auth carries it, and whether the account is still active. */
+    DatabaseUserAttributes: Omit<SessionUser, 'id'> & { active: boolean };
   }
 }

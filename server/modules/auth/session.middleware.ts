@@ -1,7 +1,6 @@
 import type { Request, RequestHandler, Response } from 'express';
 import { Cookie } from 'lucia';
 import { lucia } from './lucia';
-import { loadSessionUser } from '../users/users.repo';
 
 /** Sets the cookie with Secure when the request came over HTTPS (directly or via a trusted proxy). */
 export function writeSessionCookie(req: Request, res: Response, cookie: Cookie): void {
@@ -9,8 +8,9 @@ export function writeSessionCookie(req: Request, res: Response, cookie: Cookie):
   res.append('Set-Cookie', secured.serialize());
 }
 
-/** Reads the session cookie, validates it against PostgreSQL, slides its expiry, and puts the
- * signed-in user on req.auth. Deactivated users lose their session here. */
+/** Reads the session cookie, validates it against PostgreSQL (one query: the session with its user
+ * and organisation, see session-adapter.ts), slides its expiry, and puts the signed-in user on
+ * req.auth. Deactivated users lose their session here. */
 export const sessionMiddleware: RequestHandler = async (req, res, next) => {
   try {
     const sessionId = lucia.readSessionCookie(req.headers.cookie ?? '');
@@ -26,8 +26,18 @@ export const sessionMiddleware: RequestHandler = async (req, res, next) => {
       return next();
     }
     if (session.fresh) writeSessionCookie(req, res, lucia.createSessionCookie(session.id));
-    const sessionUser = await loadSessionUser(user.id);
-    if (sessionUser) req.auth = { user: sessionUser, sessionId: session.id };
+    req.auth = {
+      user: {
+        id: user.id,
+        email: user.email,
+        name: user.name,
+        role: user.role,
+        organisationId: user.organisationId,
+        organisationName: user.organisationName,
+        organisationKind: user.organisationKind,
+      },
+      sessionId: session.id,
+    };
     next();
   } catch (err) {
     next(err);

@@ -1,7 +1,6 @@
 import { asc, eq } from 'drizzle-orm';
 import { db, type DbOrTx } from '../../../db/client';
 import { organisations, users } from '../../../db/schema/organisations';
-import type { SessionUser } from '../../contracts/auth';
 
 const sessionUserColumns = {
   id: users.id,
@@ -12,15 +11,6 @@ const sessionUserColumns = {
   organisationName: organisations.name,
   organisationKind: organisations.kind,
 };
-
-export async function loadSessionUser(userId: number): Promise<SessionUser | undefined> {
-  const [row] = await db
-    .select(sessionUserColumns)
-    .from(users)
-    .innerJoin(organisations, eq(organisations.id, users.organisationId))
-    .where(eq(users.id, userId));
-  return row;
-}
 
 export async function findUserByEmail(email: string) {
   const [row] = await db.select().from(users).where(eq(users.email, email.toLowerCase()));
