@@ -27,6 +27,14 @@ describe('AnalysisCache', () => {
     expect(cache.get(7, 4)).toBe(json(7, 4));
   });
 
+  it('keeps the newer revision when a computation of an older one finishes after it', () => {
+    const cache = new AnalysisCache();
+    cache.set(7, 4, json(7, 4)); // the computation after an edit finished first
+    cache.set(7, 3, json(7, 3)); // the one started before the edit finishes later
+    expect(cache.get(7, 4)).toBe(json(7, 4));
+    expect(cache.get(7, 3)).toBeUndefined();
+  });
+
   it('keeps assignments apart whose ids share leading digits (1 and 11)', () => {
     const cache = new AnalysisCache();
     cache.set(1, 5, json(1, 5));

@@ -1,23 +1,27 @@
-/** Serialized analyses keyed by assignment and data revision. A change to the subject, the sales or
- * the time-adjustment switch raises the revision, so a stale entry is never read; old revisions
- * fall out as the least recently used. Per process: each app instance warms its own. */
+/** Analyses keyed by assignment and data revision, one revision per assignment: the newest one
+ * stored. A change to the subject, the sales or the time-adjustment switch raises the revision, so
+ * a stale entry is never read; assignments nobody reads fall out as the least recently used.
+ * Per process: each app instance warms its own. */
 export class AnalysisCache<T = string> {
-  private readonly entries = new Map<string, T>();
+  /** By assignment id, in order of last use (a Map iterates in insertion order). */
+  private readonly entries = new Map<number, { dataRevision: number; value: T }>();
   constructor(private readonly capacity = 200) {}
 
   get(assignmentId: number, dataRevision: number): T | undefined {
-    const key = `${assignmentId}:${dataRevision}`;
-    const hit = this.entries.get(key);
-    if (hit !== undefined) {
-      this.entries.delete(key);
-      this.entries.set(key, hit);
-    }
-    return hit;
+    const entry = this.entries.get(assignmentId);
+    if (entry === undefined || entry.dataRevision !== dataRevision) return undefined;
+    this.entries.delete(assignmentId);
+    this.entries.set(assignmentId, entry);
+    return entry.value;
   }
 
+  /** Stores an assignment's analysis unless a newer revision is already stored: a computation of
+   * an older revision that finishes last must not push out the newer one. */
   set(assignmentId: number, dataRevision: number, value: T): void {
-    for (const key of this.entries.keys()) if (key.startsWith(`${assignmentId}:`)) this.entries.delete(key);
-    this.entries.set(`${assignmentId}:${dataRevision}`, value);
+    const current = this.entries.get(assignmentId);
+    if (current !== undefined && current.dataRevision > dataRevision) return;
+    this.entries.delete(assignmentId);
+    this.entries.set(assignmentId, { dataRevision, value });
     while (this.entries.size > this.capacity) this.entries.delete(this.entries.keys().next().value!);
   }
 
