@@ -5,9 +5,17 @@ import { analyseMarket } from '../../analysis/market-analysis';
 import { loadAssignmentFor } from '../assignments/assignment-access';
 import { findSubject } from '../assignments/assignments.repo';
 import { listSales } from '../sales/sales.repo';
+import { encodeJson, type EncodedJson } from '../../http/encoded-json';
 import { AnalysisCache } from './analysis-cache';
 
-export const analysisCache = new AnalysisCache<{ analysis: Analysis; json: string }>();
+/** What the cache holds per assignment and revision: the analysis for the server's own callers
+ * (grid, review queue) and its API response, encoded once. */
+export interface CachedAnalysis {
+  analysis: Analysis;
+  response: EncodedJson;
+}
+
+export const analysisCache = new AnalysisCache<CachedAnalysis>();
 
 type AssignmentRow = Awaited<ReturnType<typeof loadAssignmentFor>>;
 
@@ -28,10 +36,20 @@ export async function computeAnalysis(assignment: AssignmentRow): Promise<Analys
 
 /** Computations under way, by assignment and data revision: requests that arrive while one runs
  * wait for it instead of starting their own (after an edit, every open page asks at once). */
-const inFlight = new Map<string, Promise<{ analysis: Analysis; json: string }>>();
+const inFlight = new Map<string, Promise<CachedAnalysis>>();
 
-/** The analysis and its JSON text, from the cache while the assignment's data has not changed. */
-export async function cachedAnalysis(assignment: AssignmentRow): Promise<{ analysis: Analysis; json: string }> {
+/** The JSON text the API sends for an analysis: the one place the wire format is chosen. */
+export function analysisWireText(analysis: Analysis): string {
+  return JSON.stringify(analysis);
+}
+
+/** The analysis with its response bytes, gzip and ETag, computed once per revision. */
+export async function cacheEntry(analysis: Analysis, wireText: string = analysisWireText(analysis)): Promise<CachedAnalysis> {
+  return { analysis, response: await encodeJson(wireText) };
+}
+
+/** The analysis and its encoded response, from the cache while the assignment's data has not changed. */
+export async function cachedAnalysis(assignment: AssignmentRow): Promise<CachedAnalysis> {
   const cached = analysisCache.get(assignment.id, assignment.dataRevision);
   if (cached !== undefined) return cached;
   const key = `${assignment.id}:${assignment.dataRevision}`;
@@ -39,7 +57,7 @@ export async function cachedAnalysis(assignment: AssignmentRow): Promise<{ analy
   if (running) return running;
   const computation = (async () => {
     const analysis = await computeAnalysis(assignment);
-    const entry = { analysis, json: JSON.stringify(analysis) };
+    const entry = await cacheEntry(analysis);
     analysisCache.set(assignment.id, assignment.dataRevision, entry);
     return entry;
   })();
@@ -51,6 +69,7 @@ export async function cachedAnalysis(assignment: AssignmentRow): Promise<{ analy
   }
 }
 
-export async function analysisJson(user: SessionUser, assignmentId: number): Promise<string> {
-  return (await cachedAnalysis(await loadAssignmentFor(db, user, assignmentId))).json;
+/** The encoded API response of an assignment's analysis, for a user who may see the assignment. */
+export async function analysisResponse(user: SessionUser, assignmentId: number): Promise<EncodedJson> {
+  return (await cachedAnalysis(await loadAssignmentFor(db, user, assignmentId))).response;
 }
