@@ -17,7 +17,7 @@ const PARAMETERS = 2;
  * normal double range (overflow, or underflow that silently drops digits). Real sales sit far
  * inside; anything outside is refused rather than answered wrongly.
  */
-const SAFE_LIMIT = 1e100;
+export const SAFE_LIMIT = 1e100;
 
 export interface FitScratch {
   xs: Float64Array;
@@ -51,7 +51,7 @@ const studentTQuantile = jStat.studentt.inv;
  * Two-sided p-value of Student's t as I_{df/(df+t²)}(df/2, 1/2). It keeps its relative accuracy in
  * the far tail, where 2·(1 − F(|t|)) cancels (to 0 for t = 2331 on 34 df; already 6e-5 off at t = 9.5).
  */
-function twoSidedPValue(t: number, df: number): number {
+export function twoSidedPValue(t: number, df: number): number {
   // 0.5·df is df/2 exactly; written as a product so that V8 does not guess an integer result and
   // drop out of optimised code at every odd df.
   const p = ibeta(df / (df + t * t), 0.5 * df, 0.5);
@@ -60,7 +60,7 @@ function twoSidedPValue(t: number, df: number): number {
 
 /** Student t quantiles are iterative and the same for every fit with the same df: kept once computed. */
 const quantiles = new Map<number, Map<number, number>>();
-function tQuantile(confidence: number, df: number): number {
+export function tQuantile(confidence: number, df: number): number {
   let byDf = quantiles.get(confidence);
   if (!byDf) quantiles.set(confidence, (byDf = new Map()));
   let t = byDf.get(df);
@@ -182,7 +182,7 @@ function computeFit(n: number, confidence: number, x0: number | undefined): Line
 }
 
 /** The estimate at x0 (d0 = x0 − x̄), with its prediction and mean intervals; null if any is not finite. */
-function predictionAt(x0: number, d0: number, n: number, sxx: number, yMean: number, slope: number, s: number, tCritical: number, xMin: number, xMax: number): Prediction | null {
+export function predictionAt(x0: number, d0: number, n: number, sxx: number, yMean: number, slope: number, s: number, tCritical: number, xMin: number, xMax: number): Prediction | null {
   const estimate = yMean + slope * d0;
   const meanHalf = tCritical * s * Math.sqrt(1 / n + (d0 * d0) / sxx);
   const newHalf = tCritical * s * Math.sqrt(1 + 1 / n + (d0 * d0) / sxx);
@@ -191,7 +191,7 @@ function predictionAt(x0: number, d0: number, n: number, sxx: number, yMean: num
   return { x0, estimate, lower, upper, meanLower, meanUpper, extrapolated: x0 < xMin || x0 > xMax };
 }
 
-function allFinite(values: ReadonlyArray<number | null>): boolean {
+export function allFinite(values: ReadonlyArray<number | null>): boolean {
   for (const v of values) if (v !== null && !Number.isFinite(v)) return false;
   return true;
 }

@@ -1,19 +1,15 @@
 // The market analysis of one assignment, pure: groups the usable sales by neighbourhood, fits price
 // on floor area per group and pooled, applies the correlation gate, predicts at the subject, flags
-// the sales the line cannot explain (in words), and fits the market-conditions trend.
-import type { Analysis, FlaggedSale, GroupAnalysis, Trend } from '../contracts/analysis';
+// the sales the line cannot explain (in words), and fits the market-conditions trend. The numbers
+// come from market-columns.ts; this module puts the answer together from them, in words.
+import { expandAnalysis, type Analysis, type AnalysisWire, type FlaggedSale, type PointColumnsWire } from '../contracts/analysis';
 import { saleTypeLabels, type SaleType } from '../contracts/sales';
 import { median } from 'simple-statistics';
 import { describeFlags } from './flag-reasons';
-import { summariseFit } from './fit-summary';
-import { fitColumns, fitScratch } from './fit-columns';
+import { analyseColumns, NO_NEIGHBOURHOOD, readSales, type FitColumnsOut, type MarketColumns } from './market-columns';
 import type { FitPoint } from './regression';
-import { revealMaskedOutliers } from './masked-outliers';
-import { flagsOf, HAS_EXTERNAL, HAS_INTERNAL, OUTLIER } from './point-diagnostics';
-import { compareNames, groupBy, pricesById } from './sale-groups';
-import { fitTrendPoints, monthsBetween, timeAdjustedPrice, utcDayMs, type TrendPoint } from './time-trend';
+import { pointAt } from './point-diagnostics';
 
-type AnalysedPoint = GroupAnalysis['points'][number];
 /** Any of the four flag bits of a point's state (point-diagnostics.ts). */
 const FLAGS = 15;
 
@@ -45,7 +41,7 @@ export interface AnalysisInput {
 export const CORRELATION_GATE = 0.5;
 export const SMALL_SAMPLE = 10;
 export const POOLED = 'All neighbourhoods';
-export const NO_NEIGHBOURHOOD = 'No neighbourhood';
+export { NO_NEIGHBOURHOOD };
 
 const fmt = (v: number, digits = 2) => v.toFixed(digits);
 
@@ -93,148 +89,111 @@ export function formatArea(v: number, unit: 'sqft' | 'sqm'): string {
   return `${Math.round(v).toLocaleString('en-US')} ${unit === 'sqft' ? 'ft²' : 'm²'}`;
 }
 
-/** Each usable sale's figures, read from the sale objects once, in order (indexed like `usable`). */
-interface SaleColumns {
-  usable: readonly AnalysisSale[];
-  ids: number[];
-  floorArea: Float64Array;
-  /** 1 where the floor area is a finite number. */
-  floorAreaOk: Uint8Array;
-  /** The prices the floor-area fits use (time-adjusted or as sold). */
-  prices: Float64Array;
+/** Figures in a column slice as a plain array (NaN stays NaN; JSON writes it as null). */
+function slice(c: Float64Array | Uint8Array, from: number, to: number): number[] {
+  const out = new Array<number>(to - from);
+  for (let k = from; k < to; k++) out[k - from] = c[k];
+  return out;
 }
 
-/**
- * The group's sales are `usable[members[k]]`. The fit reads floor area and price from the columns
- * into its scratch columns (fit-columns.ts), and each point object is built once, with its sale
- * id, from the fit's columns.
- */
-function analyseGroup(name: string, pooled: boolean, sales: SaleColumns, members: readonly number[], x0: number | null, unit: 'sqft' | 'sqm'): GroupAnalysis {
-  const n = members.length;
-  const saleAt = (k: number) => sales.usable[members[k]];
-  const { xs, ys } = fitScratch(n);
-  let bad = -1;
-  for (let k = 0; k < n; k++) {
-    const i = members[k];
-    const y = sales.prices[i];
-    if (bad < 0 && !(sales.floorAreaOk[i] && Number.isFinite(y))) bad = k;
-    xs[k] = sales.floorArea[i];
-    ys[k] = y;
-  }
-  const fit = fitColumns(n, bad, x0 !== null ? { x0 } : {});
+function pointColumnsWire(c: FitColumnsOut, from: number, to: number): PointColumnsWire {
+  const flags = new Array<number>(to - from);
+  for (let k = from; k < to; k++) flags[k - from] = c.state[k] & FLAGS;
+  return {
+    fitted: slice(c.fitted, from, to), residual: slice(c.residual, from, to), leverage: slice(c.leverage, from, to),
+    internallyStudentized: slice(c.internal, from, to), externallyStudentized: slice(c.external, from, to), cooksDistance: slice(c.cooks, from, to),
+    flags,
+  };
+}
+
+type GroupWire = AnalysisWire['groups'][number];
+
+/** One fit of the columns as the answer reports it: figures, gate, prediction, flagged sales in words, warnings. */
+function groupWire(m: MarketColumns, g: number, unit: 'sqft' | 'sqm'): GroupWire {
+  const { sales } = m;
+  const G = sales.names.length;
+  const pooled = g === G;
+  const name = pooled ? POOLED : sales.names[g];
+  const from = pooled ? 0 : sales.start[g];
+  const to = pooled ? sales.start[G] : sales.start[g + 1];
+  const fit = m.fits[g];
   if (!fit.ok) {
-    return { neighbourhood: name, pooled, n: fit.n, fit: null, refusal: { reason: fit.reason, message: fit.message }, gate: null, prediction: null, points: [], flagged: [], warnings: [fit.message] };
+    return { neighbourhood: name, pooled, n: fit.n, from, to, fit: null, refusal: { reason: fit.reason, message: fit.message }, gate: null, prediction: null, points: null, flagged: [], warnings: [fit.message] };
   }
-  const { residuals, points: columns } = fitScratch(n);
-  const points = new Array<AnalysedPoint>(n);
-  const firstPassOutliers: number[] = [];
-  let anyFlag = false;
-  for (let k = 0; k < n; k++) {
-    const state = columns.state[k];
-    const hasInternal = (state & HAS_INTERNAL) !== 0;
-    points[k] = {
-      saleId: sales.ids[members[k]], x: xs[k], y: ys[k], fitted: columns.fitted[k], residual: residuals[k], leverage: columns.leverage[k],
-      internallyStudentized: hasInternal ? columns.internal[k] : null,
-      externallyStudentized: state & HAS_EXTERNAL ? columns.external[k] : null,
-      cooksDistance: hasInternal ? columns.cooks[k] : null,
-      flags: flagsOf(state),
-    };
-    if (state & OUTLIER) firstPassOutliers.push(k);
-    if (state & FLAGS) anyFlag = true;
-  }
+  const columns = pooled ? m.pooledPoints : m.points;
+  const saleAt = (k: number) => sales.usable[sales.order[k]];
+  const pointOf = (k: number) => pointAt(sales.floorArea, m.prices, columns.residual, columns, k);
   // Flags are judged within a neighbourhood: across neighbourhoods, price levels differ by design.
   const flagged: FlaggedSale[] = [];
-  if (!pooled && anyFlag) {
-    const context = { n: fit.n, xMin: fit.xMin, xMax: fit.xMax };
-    const xMedian = median(points.map((p) => p.x));
-    for (let k = 0; k < n; k++) {
-      const p = points[k];
-      if (p.flags.length > 0) flagged.push(flaggedSale(saleAt(k), p, `${describeFlags(p, context)}${areaWords(p.x, xMedian, unit)}`, []));
+  if (!pooled) {
+    let anyFlag = false;
+    for (let k = from; k < to && !anyFlag; k++) anyFlag = (columns.state[k] & FLAGS) !== 0;
+    if (anyFlag) {
+      const context = { n: fit.summary.n, xMin: fit.summary.xMin, xMax: fit.summary.xMax };
+      const xMedian = median(slice(sales.floorArea, from, to));
+      for (let k = from; k < to; k++) {
+        if (!(columns.state[k] & FLAGS)) continue;
+        const p = pointOf(k);
+        flagged.push(flaggedSale(saleAt(k), p, `${describeFlags(p, context)}${areaWords(p.x, xMedian, unit)}`, []));
+      }
     }
   }
-  for (const hidden of pooled ? [] : revealMaskedOutliers(points, firstPassOutliers, points)) {
-    const sale = saleAt(hidden.index);
-    const names = hidden.setAside.map((k) => saleAt(k).address).join(', ');
+  for (const hidden of m.revealed[g]) {
+    const sale = saleAt(from + hidden.index);
+    const names = hidden.setAside.map((k) => saleAt(from + k).address).join(', ');
     const pct = hidden.point.fitted > 0 ? Math.round((Math.abs(hidden.point.residual) / hidden.point.fitted) * 100) : 0;
     const words = `once ${names} ${hidden.setAside.length === 1 ? 'is' : 'are'} set aside, it sold ${pct}% ${hidden.point.residual < 0 ? 'below' : 'above'} the line, far outside the scatter of the other sales (the outlier${hidden.setAside.length === 1 ? '' : 's'} had hidden it)`;
+    const setAsideIds = hidden.setAside.map((k) => saleAt(from + k).id);
     const existing = flagged.find((f) => f.saleId === sale.id);
     if (existing) {
       existing.reason = `${existing.reason} Also: ${words}.`;
-      existing.revealedWhenSetAside = hidden.setAside.map((k) => saleAt(k).id);
+      existing.revealedWhenSetAside = setAsideIds;
       if (!existing.flags.includes('outlier')) existing.flags = [...existing.flags, 'outlier'];
     } else {
-      flagged.push(flaggedSale(sale, { ...hidden.point, flags: ['outlier'] }, words, hidden.setAside.map((k) => saleAt(k).id)));
+      flagged.push(flaggedSale(sale, { ...hidden.point, flags: ['outlier'] }, words, setAsideIds));
     }
   }
   flagged.sort((a, b) => Math.abs(b.externallyStudentized ?? 0) - Math.abs(a.externallyStudentized ?? 0));
-  const gate = correlationGate(fit.r);
+  const { summary, prediction } = fit;
+  const gate = correlationGate(summary.r);
   const warnings: string[] = [];
-  if (fit.n < SMALL_SAMPLE) warnings.push(`Only ${fit.n} sales: a line through so few points moves a lot with each one.`);
+  if (summary.n < SMALL_SAMPLE) warnings.push(`Only ${summary.n} sales: a line through so few points moves a lot with each one.`);
   if (!gate.passes) warnings.push(gate.message);
-  if (gate.passes && fit.slope <= 0) warnings.push('The line falls as floor area rises: check the flagged sales before using the slope.');
-  if (fit.prediction?.extrapolated) {
-    warnings.push(`The subject's floor area (${formatArea(fit.prediction.x0, unit)}) lies outside the sales' range (${formatArea(fit.xMin, unit)} to ${formatArea(fit.xMax, unit)}): the estimate extrapolates.`);
+  if (gate.passes && summary.slope <= 0) warnings.push('The line falls as floor area rises: check the flagged sales before using the slope.');
+  if (prediction?.extrapolated) {
+    warnings.push(`The subject's floor area (${formatArea(prediction.x0, unit)}) lies outside the sales' range (${formatArea(summary.xMin, unit)} to ${formatArea(summary.xMax, unit)}): the estimate extrapolates.`);
   }
-  return { neighbourhood: name, pooled, n: fit.n, fit: summariseFit(fit), refusal: null, gate, prediction: fit.prediction ?? null, points, flagged, warnings };
+  return { neighbourhood: name, pooled, n: summary.n, from, to, fit: summary, refusal: null, gate, prediction, points: pointColumnsWire(columns, from, to), flagged, warnings };
 }
 
-export function analyseMarket(input: AnalysisInput): Analysis {
-  const usable: AnalysisSale[] = [];
-  const excluded: Analysis['excluded'] = [];
-  for (const s of input.sales) {
-    if (!s.excluded) usable.push(s);
-    else excluded.push({ saleId: s.id, address: s.address, reason: s.exclusionReason });
+/** The answer, with every per-sale figure in columns (the endpoint sends this; expandAnalysis makes rows of it). */
+export function analysisWire(input: AnalysisInput, m: MarketColumns = analyseColumns(readSales(input), { timeAdjustment: input.timeAdjustment, x0: input.subject.floorArea })): AnalysisWire {
+  const { sales } = m;
+  const G = sales.names.length;
+  const n = sales.start[G];
+  const trends: AnalysisWire['trends'] = [];
+  for (let g = 0; g <= G; g++) {
+    const fit = m.trends[g];
+    const rate = m.monthlyRates[g];
+    const [from, to] = g < G ? [sales.start[g], sales.start[g + 1]] : [0, n];
+    const neighbourhood = g < G ? sales.names[g] : POOLED;
+    trends.push(
+      fit.ok
+        ? { neighbourhood, n: fit.summary.n, from, to, fit: fit.summary, refusal: null, monthlyRate: Number.isNaN(rate) ? null : rate }
+        : { neighbourhood, n: fit.n, from, to, fit: null, refusal: { reason: fit.reason, message: fit.message }, monthlyRate: null },
+    );
   }
-  const { members: byNeighbourhood, groupOf } = groupBy(usable, NO_NEIGHBOURHOOD);
-  const subjectName = input.subject.neighbourhood;
-  const names = [...byNeighbourhood.keys()].sort((a, b) => (a === subjectName ? -1 : b === subjectName ? 1 : compareNames(a, b)));
-
-  // Each sale's figures, read once and in order: the later passes go neighbourhood by
-  // neighbourhood, and would otherwise read the sale objects scattered through memory, many times.
-  const n = usable.length;
-  const effectiveMs = utcDayMs(input.effectiveDate);
-  const ids = new Array<number>(n);
-  const salePrice = new Float64Array(n);
-  const floorArea = new Float64Array(n);
-  const floorAreaOk = new Uint8Array(n);
-  const pricePerArea = new Float64Array(n);
-  const months = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    const s = usable[i];
-    ids[i] = s.id;
-    salePrice[i] = s.salePrice;
-    floorArea[i] = s.floorArea;
-    floorAreaOk[i] = Number.isFinite(s.floorArea) ? 1 : 0;
-    pricePerArea[i] = s.salePrice / s.floorArea;
-    months[i] = monthsBetween(utcDayMs(s.saleDate), effectiveMs);
-  }
-  const trendPoint = (i: number): TrendPoint => ({ saleId: ids[i], monthsBefore: months[i], pricePerArea: pricePerArea[i] });
-  const trends: Trend[] = names.map((name) => fitTrendPoints(name, byNeighbourhood.get(name)!.map(trendPoint)));
-  const everyone = new Array<number>(n);
-  for (let i = 0; i < n; i++) everyone[i] = i;
-  const pooledTrend = fitTrendPoints(POOLED, everyone.map(trendPoint));
-  trends.push(pooledTrend);
-
-  // Prices used by the floor-area fits: time-adjusted with the sale's own neighbourhood trend (the
-  // pooled one where its neighbourhood has none) when the appraiser turns the adjustment on.
-  const rateOf = new Map(names.map((name, g) => [name, trends[g].monthlyRate ?? pooledTrend.monthlyRate]));
-  const rates = [...byNeighbourhood.keys()].map((name) => rateOf.get(name)!); // in groupOf's order
-  const prices = new Float64Array(n);
-  for (let i = 0; i < n; i++) prices[i] = input.timeAdjustment ? timeAdjustedPrice(salePrice[i], months[i], rates[groupOf[i]]) : salePrice[i];
-  const adjustedPrices = pricesById(usable, prices, names.map((name) => byNeighbourhood.get(name)!));
-  const columns: SaleColumns = { usable, ids, floorArea, floorAreaOk, prices };
-  const x0 = input.subject.floorArea;
-  const groups = names.map((name) => analyseGroup(name, false, columns, byNeighbourhood.get(name)!, name === subjectName ? x0 : null, input.areaUnit));
-  groups.push(analyseGroup(POOLED, true, columns, everyone, x0, input.areaUnit));
+  const groups: GroupWire[] = [];
+  for (let g = 0; g <= G; g++) groups.push(groupWire(m, g, input.areaUnit));
 
   const warnings: string[] = [];
   const subjectTrend = trends.find((t) => t.neighbourhood === input.subject.neighbourhood)?.fit;
   if (input.timeAdjustment && subjectTrend && subjectTrend.slopeInterval[0] < 0 && subjectTrend.slopeInterval[1] > 0) {
     warnings.push('The market-conditions trend of the subject’s neighbourhood cannot be told apart from no change (its 95% interval spans zero): weigh the time adjustment with care.');
   }
-  if (x0 === null) warnings.push('Enter the subject’s floor area to get an estimate at the subject.');
+  if (input.subject.floorArea === null) warnings.push('Enter the subject’s floor area to get an estimate at the subject.');
   if (!input.subject.neighbourhood) warnings.push('Place the subject on the map or type its neighbourhood to pick its neighbourhood’s fit.');
-  else if (!byNeighbourhood.has(input.subject.neighbourhood)) warnings.push(`No usable sale lies in ${input.subject.neighbourhood}, the subject’s neighbourhood.`);
+  else if (sales.subjectGroup < 0) warnings.push(`No usable sale lies in ${input.subject.neighbourhood}, the subject’s neighbourhood.`);
 
   return {
     assignmentId: input.assignmentId,
@@ -244,11 +203,64 @@ export function analyseMarket(input: AnalysisInput): Analysis {
     effectiveDate: input.effectiveDate,
     timeAdjustment: input.timeAdjustment,
     subject: input.subject,
-    subjectGroup: input.subject.neighbourhood && byNeighbourhood.has(input.subject.neighbourhood) ? input.subject.neighbourhood : null,
+    subjectGroup: input.subject.neighbourhood && sales.subjectGroup >= 0 ? input.subject.neighbourhood : null,
+    sales: { saleId: slice(sales.saleId, 0, n), x: slice(sales.floorArea, 0, n), y: slice(m.prices, 0, n), monthsBefore: slice(sales.monthsBefore, 0, n), pricePerArea: slice(sales.pricePerArea, 0, n) },
     groups,
     trends,
-    excluded,
-    adjustedPrices,
+    excluded: sales.excluded.map((s) => ({ saleId: s.id, address: s.address, reason: s.exclusionReason })),
     warnings,
+  };
+}
+
+/** The analysis with its per-sale rows (for the report snapshot, the grid and the tests). */
+export function analyseMarket(input: AnalysisInput): Analysis {
+  return expandAnalysis(analysisWire(input));
+}
+
+
+const cents = (v: number) => Math.round(v * 100) / 100;
+const fourDecimals = (v: number) => Math.round(v * 1e4) / 1e4;
+/**
+ * Six significant digits (NaN and 0 as they are): an integer times or over an exact power of ten
+ * (10^k is exact up to k = 22), so the double is the one nearest the short decimal and prints as it.
+ */
+function sixDigits(v: number): number {
+  if (v === 0 || !Number.isFinite(v)) return v;
+  const shift = 5 - Math.floor(Math.log10(Math.abs(v)));
+  if (shift > 22 || shift < -22) return Number(v.toPrecision(6));
+  return shift >= 0 ? Math.round(v * 10 ** shift) / 10 ** shift : Math.round(v / 10 ** -shift) * 10 ** -shift;
+}
+function rounded(column: number[], round: (v: number) => number): number[] {
+  const out = new Array<number>(column.length);
+  for (let k = 0; k < column.length; k++) {
+    const v = column[k];
+    out[k] = v === null ? v : round(v);
+  }
+  return out;
+}
+
+/**
+ * The per-sale figures rounded for the wire: prices, fitted values and residuals to the cent,
+ * months to 1e-4 (under a minute), leverage, studentized residuals and Cook's distance to six
+ * significant digits. The page and the report show fewer; the flags were decided at full precision
+ * and travel as they are. The summaries (slopes, r, intervals) keep every digit.
+ */
+export function transportWire(wire: AnalysisWire): AnalysisWire {
+  const { sales } = wire;
+  return {
+    ...wire,
+    sales: { saleId: sales.saleId, x: rounded(sales.x, cents), y: rounded(sales.y, cents), monthsBefore: rounded(sales.monthsBefore, fourDecimals), pricePerArea: rounded(sales.pricePerArea, cents) },
+    groups: wire.groups.map((group) => {
+      const c = group.points;
+      if (!c) return group;
+      return {
+        ...group,
+        points: {
+          fitted: rounded(c.fitted, cents), residual: rounded(c.residual, cents), leverage: rounded(c.leverage, sixDigits),
+          internallyStudentized: rounded(c.internallyStudentized as number[], sixDigits), externallyStudentized: rounded(c.externallyStudentized as number[], sixDigits),
+          cooksDistance: rounded(c.cooksDistance as number[], sixDigits), flags: c.flags,
+        },
+      };
+    }),
   };
 }

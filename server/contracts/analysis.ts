@@ -116,3 +116,78 @@ export const analysisResponse = z.object({
   warnings: z.array(z.string()),
 });
 export type Analysis = z.infer<typeof analysisResponse>;
+
+// The analysis as it travels: every per-sale figure in columns (one array per figure, no repeated
+// keys), which the client expands into the rows above with expandAnalysis. The columns index the
+// usable sales by "position": each neighbourhood's sales form one run [from, to), the pooled fit
+// covers every position.
+
+/** Flags as bits, in the fixed order of pointFlags: 1 unusual, 2 outlier, 4 influential, 8 high leverage. */
+export function flagsFromBits(bits: number): Array<(typeof pointFlags)[number]> {
+  const flags: Array<(typeof pointFlags)[number]> = [];
+  for (let i = 0; i < pointFlags.length; i++) if (bits & (1 << i)) flags.push(pointFlags[i]);
+  return flags;
+}
+
+const column = z.array(num);
+const nullableColumn = z.array(nullableNum);
+
+export const pointColumnsSchema = z.object({
+  fitted: column,
+  residual: column,
+  leverage: column,
+  internallyStudentized: nullableColumn,
+  externallyStudentized: nullableColumn,
+  cooksDistance: nullableColumn,
+  flags: z.array(z.number().int().min(0).max(15)),
+});
+export type PointColumnsWire = z.infer<typeof pointColumnsSchema>;
+
+const range = { from: z.number().int().min(0), to: z.number().int().min(0) };
+
+export const analysisWireSchema = analysisResponse
+  .omit({ groups: true, trends: true, adjustedPrices: true })
+  .extend({
+    /** Each usable sale's figures by position; y is the price the floor-area fits use. */
+    sales: z.object({ saleId: z.array(z.number().int()), x: column, y: column, monthsBefore: column, pricePerArea: column }),
+    /** points is null where the fit was refused; else its columns cover positions [from, to). */
+    groups: z.array(groupAnalysisSchema.omit({ points: true }).extend({ ...range, points: pointColumnsSchema.nullable() })),
+    trends: z.array(trendSchema.omit({ points: true }).extend(range)),
+  });
+export type AnalysisWire = z.infer<typeof analysisWireSchema>;
+
+/** null for null, NaN or a missing slot (an undefined figure either way). */
+const orNull = (v: number | null | undefined): number | null => (typeof v === 'number' && v === v ? v : null);
+
+/** The rows of the analysis from its columns. */
+export function expandAnalysis(wire: AnalysisWire): Analysis {
+  const { sales, groups, trends, ...rest } = wire;
+  const adjustedPrices: Record<string, number> = {};
+  for (let k = 0; k < sales.saleId.length; k++) adjustedPrices[sales.saleId[k]] = sales.y[k];
+  return {
+    ...rest,
+    groups: groups.map(({ from, to, points: c, ...group }) => {
+      const points: Analysis['groups'][number]['points'] = [];
+      if (c) {
+        for (let k = from; k < to; k++) {
+          const j = k - from;
+          points.push({
+            saleId: sales.saleId[k], x: sales.x[k], y: sales.y[k], fitted: c.fitted[j], residual: c.residual[j], leverage: c.leverage[j],
+            internallyStudentized: orNull(c.internallyStudentized[j]), externallyStudentized: orNull(c.externallyStudentized[j]),
+            cooksDistance: orNull(c.cooksDistance[j]), flags: flagsFromBits(c.flags[j]),
+          });
+        }
+      }
+      return { ...group, points };
+    }),
+    trends: trends.map(({ from, to, ...trend }) => {
+      const points: Trend['points'] = [];
+      for (let k = from; k < to; k++) points.push({ saleId: sales.saleId[k], monthsBefore: sales.monthsBefore[k], pricePerArea: sales.pricePerArea[k] });
+      return { ...trend, points };
+    }),
+    adjustedPrices,
+  };
+}
+
+/** The analysis endpoint's answer, checked and expanded into rows. */
+export const analysisWireResponse = analysisWireSchema.transform(expandAnalysis);

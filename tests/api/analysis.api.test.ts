@@ -6,7 +6,7 @@ import { sales } from '../../db/schema/assignments';
 import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { generatePortEllery } from '../../db/seed/port-ellery';
 import { DEMO_SUBJECT_ADDRESS } from '../../db/seed/seed-assignment';
-import { analysisResponse, type Analysis, type GroupAnalysis } from '../../server/contracts/analysis';
+import { analysisWireResponse, type Analysis, type GroupAnalysis } from '../../server/contracts/analysis';
 import { bumpDataRevision } from '../../server/modules/assignments/assignments.repo';
 import { createUser, type TestUser } from '../factories/accounts';
 import { D_PATTERN, E_PATTERN } from '../factories/analysis';
@@ -24,7 +24,7 @@ afterAll(async () => {
 async function getAnalysis(agent: Agent, assignmentId: number): Promise<Analysis> {
   const res = await agent.get(`/api/assignments/${assignmentId}/analysis`);
   expect(res.status, res.text).toBe(200);
-  return analysisResponse.parse(res.body);
+  return analysisWireResponse.parse(res.body);
 }
 
 function quarryHill(analysis: Analysis): GroupAnalysis {
@@ -162,7 +162,7 @@ describe('who may read the analysis', () => {
     for (const [who, make, status] of expectations) {
       const res = await (await signedInAgent(api, await make())).get(url);
       expect(res.status, who).toBe(status);
-      if (status === 200) expect(analysisResponse.parse(res.body).assignmentId, who).toBe(assignmentId);
+      if (status === 200) expect(analysisWireResponse.parse(res.body).assignmentId, who).toBe(assignmentId);
       else expectErrorEnvelope(res);
     }
   });

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { db } from '../../db/client';
 import { queryMessages } from '../../db/schema/review';
-import { analysisResponse, type Analysis } from '../../server/contracts/analysis';
+import { analysisWireResponse, type Analysis } from '../../server/contracts/analysis';
 import { queryListResponse } from '../../server/contracts/review';
 import { createOrganisation, createUser } from '../factories/accounts';
 import { saleRow } from '../factories/assignments';
@@ -40,7 +40,7 @@ async function queryById(agent: Agent, assignmentId: number, queryId: number) {
 async function analysisOf(assignmentId: number): Promise<Analysis> {
   const res = await world.agents.reviewer.get(`/api/assignments/${assignmentId}/analysis`);
   expect(res.status).toBe(200);
-  return analysisResponse.parse(res.body);
+  return analysisWireResponse.parse(res.body);
 }
 
 /** Every sale id the analysis uses anywhere: the points of every group (pooled too) and of every trend. */

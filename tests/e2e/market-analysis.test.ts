@@ -6,7 +6,7 @@ import { sales } from '../../db/schema/assignments';
 import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { generatePortEllery } from '../../db/seed/port-ellery';
 import { DEMO_SUBJECT_ADDRESS } from '../../db/seed/seed-assignment';
-import type { Analysis, GroupAnalysis } from '../../server/contracts/analysis';
+import { analysisWireResponse, type Analysis, type GroupAnalysis } from '../../server/contracts/analysis';
 import { CAUTIONS } from '../../server/contracts/report-text';
 import { figureFormat } from '../../client/features/market-analysis/lib/figure-format';
 import { predictionHalfWidth } from '../../client/features/market-analysis/lib/prediction-band';
@@ -75,7 +75,7 @@ describe('the market analysis step in a real browser', () => {
     const id = demo!.id;
 
     await page.goto(`${app.baseUrl}/assignments/${id}/market-analysis`);
-    const analysis = await apiGet<Analysis>(page, `/api/assignments/${id}/analysis`);
+    const analysis = analysisWireResponse.parse(await apiGet<unknown>(page, `/api/assignments/${id}/analysis`));
     const format = figureFormat(analysis.currency, analysis.areaUnit, LOCALE);
     expect(analysis.subjectGroup).toBe('Quarry Hill');
     const quarryHill = groupNamed(analysis, 'Quarry Hill');
@@ -212,7 +212,7 @@ describe('the market analysis step in a real browser', () => {
     expect((await saved).status()).toBe(200);
     await page.getByText('Time-adjusted prices ·').waitFor();
     expect(await timeSwitch.getAttribute('aria-checked')).toBe('true');
-    const adjusted = await apiGet<Analysis>(page, `/api/assignments/${copy.id}/analysis`);
+    const adjusted = analysisWireResponse.parse(await apiGet<unknown>(page, `/api/assignments/${copy.id}/analysis`));
     expect(adjusted.timeAdjustment).toBe(true);
     // The scatter and figures now show the time-adjusted fit.
     const adjustedFormat = figureFormat(adjusted.currency, adjusted.areaUnit, LOCALE);

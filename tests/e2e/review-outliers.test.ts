@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
-import type { Analysis } from '../../server/contracts/analysis';
+import { analysisWireResponse, type Analysis } from '../../server/contracts/analysis';
 import { apiSessionAs, createDemoAssignment, TYPED_RATE } from '../factories/demo-assignment';
 import { launchBrowser, saveScreenshot, startApp, unexpectedFailures, watchPage, type PageWatch, type RunningApp, type RunningBrowser } from './support/browser';
 
@@ -130,7 +130,7 @@ describe('the review of planted outliers, in a real browser', () => {
     const family = copy.anomalies['family-transfer'];
     expect(family.address).toBe('41 Cobble Lane');
     const appraiserApi = await apiSessionAs(app.baseUrl, 'appraiser');
-    const before = subjectFit((await appraiserApi.request<Analysis>('GET', `/api/assignments/${copy.id}/analysis`)).body);
+    const before = subjectFit(analysisWireResponse.parse((await appraiserApi.request<unknown>('GET', `/api/assignments/${copy.id}/analysis`)).body));
     expect(before.flagged).toContain(family.address);
 
     // The reviewer opens the file from the queue and finds the family transfer flagged.
@@ -176,7 +176,7 @@ describe('the review of planted outliers, in a real browser', () => {
     await expect(excluded.innerText()).resolves.toContain(reason);
     await expect(excluded.locator('.line-through').innerText()).resolves.toBe(family.address);
 
-    const after = subjectFit((await appraiserApi.request<Analysis>('GET', `/api/assignments/${copy.id}/analysis`)).body);
+    const after = subjectFit(analysisWireResponse.parse((await appraiserApi.request<unknown>('GET', `/api/assignments/${copy.id}/analysis`)).body));
     expect(after.n).toBe(before.n - 1);
     const change = work.getByTestId('fit-change');
     await change.waitFor();

@@ -150,10 +150,14 @@ describe('prices keyed by sale id', () => {
     }
   });
 
-  it('when two sales share an id, both are fitted at the price last worked out for it', () => {
-    const analysis = analyseMarket(analysisInput(sales((i) => (i === 7 ? 4 : i)), { timeAdjustment: true }));
+  it('when two sales share an id (the database never allows it), each is still fitted at its own price', () => {
+    const input = analysisInput(sales((i) => (i === 7 ? 4 : i)), { timeAdjustment: true });
+    const analysis = analyseMarket(input);
+    const rateOf = (name: string) => analysis.trends.find((t) => t.neighbourhood === name)!.monthlyRate;
     const shared = analysis.groups.filter((g) => !g.pooled).flatMap((g) => g.points.filter((p) => p.saleId === 4));
-    expect(shared).toHaveLength(2);
-    expect(shared.map((p) => p.y)).toEqual([analysis.adjustedPrices['4'], analysis.adjustedPrices['4']]);
+    const own = input.sales.filter((s) => s.id === 4).map((s) => timeAdjustedPrice(s.salePrice, monthsBefore(s.saleDate, '2026-11-15'), rateOf(s.neighbourhood!)));
+    expect(own).toHaveLength(2);
+    expect(own[0]).not.toBe(own[1]);
+    expect(shared.map((p) => p.y).sort()).toEqual([...own].sort());
   });
 });

@@ -1,8 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { linearRegression } from 'simple-statistics';
-import { analysisResponse, type Analysis, type GroupAnalysis } from '../../server/contracts/analysis';
-import { analyseMarket } from '../../server/analysis/market-analysis';
+import { analysisResponse, analysisWireResponse, analysisWireSchema, expandAnalysis, type Analysis, type GroupAnalysis } from '../../server/contracts/analysis';
+import { analyseMarket, analysisWire, transportWire } from '../../server/analysis/market-analysis';
 import { analysisInput, analysisSale, nonFiniteNumbers, salesOnLine } from '../factories/analysis';
 
 // Sales built with salesOnLine lie on a least-squares line of exactly the slope and intercept
@@ -225,5 +225,47 @@ describe('degenerate input: a typed refusal, never NaN', () => {
       }),
       { numRuns: 300, seed: 20261115 },
     );
+  });
+});
+
+describe('the answer on the wire: per-sale figures in columns', () => {
+  const sales = [
+    ...salesOnLine({ neighbourhood: 'Quarry Hill', intercept: 55_000, slope: 240, scatter: 3_000, copies: 3 }),
+    ...salesOnLine({ neighbourhood: 'Tannery Row', intercept: 35_000, slope: 185, scatter: 2_000 }),
+    analysisSale({ neighbourhood: 'Quarry Hill', floorArea: 1_500, salePrice: 150_000 }),
+    ...[1_500, 1_500].map((floorArea) => analysisSale({ neighbourhood: 'Orchard Rise', floorArea })),
+  ];
+  const input = analysisInput(sales, { timeAdjustment: true });
+
+  it('fits its schema through JSON and expands to exactly the rows analyseMarket gives', () => {
+    const wire = analysisWire(input);
+    const travelled = analysisWireSchema.parse(JSON.parse(JSON.stringify(wire)));
+    expect(expandAnalysis(travelled)).toEqual(analyseMarket(input));
+    // A refused fit (Orchard Rise: one floor area) travels without point columns.
+    expect(wire.groups.find((g) => g.neighbourhood === 'Orchard Rise')!.points).toBeNull();
+  });
+
+  it('rounded for transport: money to the cent, statistics to six significant digits, flags untouched', () => {
+    const exact = analyseMarket(input);
+    const sent = analysisWireResponse.parse(JSON.parse(JSON.stringify(transportWire(analysisWire(input)))));
+    expect(sent.groups.map((g) => g.fit)).toEqual(exact.groups.map((g) => g.fit));
+    const flagged = exact.groups.flatMap((g) => g.points.filter((p) => p.flags.length > 0));
+    expect(flagged.length).toBeGreaterThan(0);
+    exact.groups.forEach((g, i) => {
+      g.points.forEach((p, j) => {
+        const q = sent.groups[i].points[j];
+        expect(q.saleId).toBe(p.saleId);
+        expect(q.flags).toEqual(p.flags);
+        for (const key of ['y', 'fitted', 'residual'] as const) expect(Math.abs(q[key] - p[key])).toBeLessThanOrEqual(0.005 + 1e-9 * Math.abs(p[key]));
+        for (const key of ['leverage', 'internallyStudentized', 'externallyStudentized', 'cooksDistance'] as const) {
+          const [a, b] = [q[key], p[key]];
+          if (b === null) expect(a).toBeNull();
+          else expect(Math.abs(a! - b)).toBeLessThanOrEqual(5e-6 * Math.abs(b));
+        }
+      });
+    });
+    // Rounded figures print shorter than full doubles.
+    const text = JSON.stringify(transportWire(analysisWire(input)));
+    expect(text.length).toBeLessThan(JSON.stringify(analysisWire(input)).length);
   });
 });

@@ -1,7 +1,7 @@
 import { db } from '../../../db/client';
 import type { SessionUser } from '../../contracts/auth';
-import type { Analysis } from '../../contracts/analysis';
-import { analyseMarket } from '../../analysis/market-analysis';
+import { expandAnalysis, type Analysis, type AnalysisWire } from '../../contracts/analysis';
+import { analysisWire, transportWire } from '../../analysis/market-analysis';
 import { loadAssignmentFor } from '../assignments/assignment-access';
 import { findSubject } from '../assignments/assignments.repo';
 import { listSales } from '../sales/sales.repo';
@@ -9,9 +9,9 @@ import { encodeJson, type EncodedJson } from '../../http/encoded-json';
 import { AnalysisCache } from './analysis-cache';
 
 /** What the cache holds per assignment and revision: the analysis for the server's own callers
- * (grid, review queue) and its API response, encoded once. */
+ * (grid, review queue; its rows are built on first use) and its API response, encoded once. */
 export interface CachedAnalysis {
-  analysis: Analysis;
+  readonly analysis: Analysis;
   response: EncodedJson;
 }
 
@@ -19,10 +19,15 @@ export const analysisCache = new AnalysisCache<CachedAnalysis>();
 
 type AssignmentRow = Awaited<ReturnType<typeof loadAssignmentFor>>;
 
-/** Computes the analysis of an assignment from the database (no cache). */
+/** Computes the analysis of an assignment from the database (no cache), with its rows. */
 export async function computeAnalysis(assignment: AssignmentRow): Promise<Analysis> {
+  return expandAnalysis(await computeAnalysisWire(assignment));
+}
+
+/** Computes the analysis of an assignment from the database (no cache), per-sale figures in columns. */
+export async function computeAnalysisWire(assignment: AssignmentRow): Promise<AnalysisWire> {
   const [subject, sales] = await Promise.all([findSubject(db, assignment.id), listSales(db, assignment.id)]);
-  return analyseMarket({
+  return analysisWire({
     assignmentId: assignment.id,
     dataRevision: assignment.dataRevision,
     areaUnit: assignment.areaUnit,
@@ -39,13 +44,20 @@ export async function computeAnalysis(assignment: AssignmentRow): Promise<Analys
 const inFlight = new Map<string, Promise<CachedAnalysis>>();
 
 /** The JSON text the API sends for an analysis: the one place the wire format is chosen. */
-export function analysisWireText(analysis: Analysis): string {
-  return JSON.stringify(analysis);
+export function analysisWireText(wire: AnalysisWire): string {
+  return JSON.stringify(transportWire(wire));
 }
 
-/** The analysis with its response bytes, gzip and ETag, computed once per revision. */
-export async function cacheEntry(analysis: Analysis, wireText: string = analysisWireText(analysis)): Promise<CachedAnalysis> {
-  return { analysis, response: await encodeJson(wireText) };
+/** The response bytes, gzip and ETag, computed once per revision; the rows only when asked for. */
+export async function cacheEntry(wire: AnalysisWire): Promise<CachedAnalysis> {
+  const response = await encodeJson(analysisWireText(wire));
+  let rows: Analysis | undefined;
+  return {
+    get analysis() {
+      return (rows ??= expandAnalysis(wire));
+    },
+    response,
+  };
 }
 
 /** The analysis and its encoded response, from the cache while the assignment's data has not changed. */
@@ -56,8 +68,7 @@ export async function cachedAnalysis(assignment: AssignmentRow): Promise<CachedA
   const running = inFlight.get(key);
   if (running) return running;
   const computation = (async () => {
-    const analysis = await computeAnalysis(assignment);
-    const entry = await cacheEntry(analysis);
+    const entry = await cacheEntry(await computeAnalysisWire(assignment));
     analysisCache.set(assignment.id, assignment.dataRevision, entry);
     return entry;
   })();

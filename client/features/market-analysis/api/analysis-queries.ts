@@ -1,6 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { analysisResponse } from '@contracts/analysis';
+import { analysisWireResponse } from '@contracts/analysis';
 import { assignmentSchema } from '@contracts/assignments';
 import { saleListResponse } from '@contracts/sales';
 import { apiRequest } from '../../../lib/api-client';
@@ -12,7 +12,7 @@ export const analysisQueries = {
   analysis: (assignmentId: number) =>
     queryOptions({
       queryKey: assignmentQueries.analysisKey(assignmentId),
-      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisResponse, { signal }),
+      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisWireResponse, { signal }),
     }),
   /** The sales list, read here only for addresses and recorded prices (a key of its own under the
    * sales key, so that the comparables step's list is never overwritten by this one). */

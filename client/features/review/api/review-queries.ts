@@ -1,5 +1,5 @@
 import { queryOptions } from '@tanstack/react-query';
-import { analysisResponse } from '@contracts/analysis';
+import { analysisWireResponse } from '@contracts/analysis';
 import { reviewQueueResponse } from '@contracts/review';
 import { apiRequest } from '../../../lib/api-client';
 
@@ -16,6 +16,6 @@ export const reviewQueries = {
   analysis: (assignmentId: number) =>
     queryOptions({
       queryKey: [...reviewQueries.all(), 'analysis', assignmentId] as const,
-      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisResponse, { signal }),
+      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisWireResponse, { signal }),
     }),
 };

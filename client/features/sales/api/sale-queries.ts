@@ -1,6 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { analysisResponse } from '@contracts/analysis';
+import { analysisWireResponse } from '@contracts/analysis';
 import { saleCreate, saleListResponse, saleSchema, saleUpdate } from '@contracts/sales';
 import { apiRequest } from '../../../lib/api-client';
 import { assignmentQueries } from '../../assignments/api/assignment-queries';
@@ -17,7 +17,7 @@ export const saleQueries = {
   analysis: (assignmentId: number) =>
     queryOptions({
       queryKey: assignmentQueries.analysisKey(assignmentId),
-      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisResponse, { signal }),
+      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/analysis`, analysisWireResponse, { signal }),
     }),
 };
 
