@@ -37,8 +37,18 @@ function selectAssignments(tx: DbOrTx) {
 
 export type AssignmentRow = Awaited<ReturnType<typeof findAssignment>> & {};
 
+/** Every per-assignment request reads its assignment first (access check, data revision): outside
+ * a transaction it runs as a named prepared statement, so neither Drizzle nor PostgreSQL plans it
+ * again each time. */
+const findAssignmentStatement = selectAssignments(db)
+  .where(and(eq(assignments.id, sql.placeholder('id')), isNull(assignments.archivedAt)))
+  .prepare('compline_find_assignment');
+
 export async function findAssignment(tx: DbOrTx, id: number) {
-  const [row] = await selectAssignments(tx).where(and(eq(assignments.id, id), isNull(assignments.archivedAt)));
+  const [row] =
+    tx === db
+      ? await findAssignmentStatement.execute({ id })
+      : await selectAssignments(tx).where(and(eq(assignments.id, id), isNull(assignments.archivedAt)));
   return row;
 }
 
