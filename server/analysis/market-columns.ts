@@ -14,8 +14,8 @@ import type { AnalysisInput, AnalysisSale } from './market-analysis';
 import { allFinite, fitColumns, fitScratch, predictionAt, SAFE_LIMIT, tQuantile, twoSidedPValue } from './fit-columns';
 import { summariseFit } from './fit-summary';
 import { revealMaskedOutliers, type RevealedOutlier } from './masked-outliers';
-import { EXACT_FIT_TOLERANCE, HAS_EXTERNAL, HAS_INTERNAL, HIGH_LEVERAGE, INFLUENTIAL, OUTLIER, pointAt, pointColumns, soleDistinctX, UNUSUAL, type PointColumns } from './point-diagnostics';
-import type { Prediction, RefusalReason } from './regression';
+import { EXACT_FIT_TOLERANCE, flagsOf, HAS_EXTERNAL, HAS_INTERNAL, HIGH_LEVERAGE, INFLUENTIAL, OUTLIER, pointColumns, soleDistinctX, UNUSUAL, type PointColumns } from './point-diagnostics';
+import type { FitPoint, Prediction, RefusalReason } from './regression';
 import { monthsBetween, utcDayMs } from './time-trend';
 
 const UNUSUAL_T = 2;
@@ -221,14 +221,20 @@ function referenceFit(xs: Float64Array, ys: Float64Array, a: number, b: number, 
   return { ok: true, summary: summariseFit(fit), prediction: fit.prediction ?? null };
 }
 
-/**
- * The lean fit, or null when the data are not ordinary (see the top of this file) and the range
- * must go to fitColumns (which then overwrites whatever figures it had written into `out`).
- */
-function leanFit(xs: Float64Array, ys: Float64Array, a: number, b: number, out: FitColumnsOut | null, x0: number | undefined, confidence: number): GroupFit | null {
+interface LeanSums {
+  xMean: number;
+  yMean: number;
+  sxx: number;
+  syy: number;
+  sxy: number;
+  xMin: number;
+  xMax: number;
+}
+
+/** Means, centred sums and the range of x over [a, b), or null when the data are not ordinary. */
+function leanSums(xs: Float64Array, ys: Float64Array, a: number, b: number): LeanSums | null {
   const n = b - a;
-  if (n < 4 || !(confidence > 0 && confidence < 1)) return null;
-  if (x0 !== undefined && !(Math.abs(x0) <= SAFE_LIMIT)) return null;
+  if (n < 4) return null;
   let sx = 0, sy = 0;
   let xMin = xs[a], xMax = xs[a], yMin = ys[a], yMax = ys[a];
   for (let k = a; k < b; k++) {
@@ -253,6 +259,20 @@ function leanFit(xs: Float64Array, ys: Float64Array, a: number, b: number, out: 
   }
   if (!(sxx > 0 && syy > 0) || xMax - xMin < 2 / SAFE_LIMIT || yMax - yMin < 2 / SAFE_LIMIT) return null;
   if (soleDistinctX(xs.subarray(a, b), n) >= 0) return null;
+  return { xMean, yMean, sxx, syy, sxy, xMin, xMax };
+}
+
+/**
+ * The lean fit, or null when the data are not ordinary (see the top of this file) and the range
+ * must go to fitColumns (which then overwrites whatever figures it had written into `out`).
+ */
+function leanFit(xs: Float64Array, ys: Float64Array, a: number, b: number, out: FitColumnsOut | null, x0: number | undefined, confidence: number): GroupFit | null {
+  const n = b - a;
+  if (!(confidence > 0 && confidence < 1)) return null;
+  if (x0 !== undefined && !(Math.abs(x0) <= SAFE_LIMIT)) return null;
+  const sums = leanSums(xs, ys, a, b);
+  if (sums === null) return null;
+  const { xMean, yMean, sxx, syy, sxy, xMin, xMax } = sums;
   const slope = sxy / sxx;
   let sse = 0;
   if (out) {
@@ -263,9 +283,16 @@ function leanFit(xs: Float64Array, ys: Float64Array, a: number, b: number, out: 
       sse += e * e;
     }
   } else {
-    for (let k = a; k < b; k++) {
-      const e = ys[k] - yMean - slope * (xs[k] - xMean);
-      sse += e * e;
+    // Without per-point figures, SSE = Syy − Sxy²/Sxx saves a pass. It loses about
+    // ε·Syy/SSE of relative accuracy, so where the line explains more than 99.99% of Syy the
+    // residuals are summed instead.
+    sse = syy - slope * sxy;
+    if (!(sse > 1e-4 * syy)) {
+      sse = 0;
+      for (let k = a; k < b; k++) {
+        const e = ys[k] - yMean - slope * (xs[k] - xMean);
+        sse += e * e;
+      }
     }
   }
   if (sse <= EXACT_FIT_TOLERANCE * EXACT_FIT_TOLERANCE * syy) return null;
@@ -338,7 +365,7 @@ function diagnoseRange(xs: Float64Array, ys: Float64Array, a: number, b: number,
   return Number.isFinite(check);
 }
 
-let maskScratch = { xs: new Float64Array(256), ys: new Float64Array(256), kept: new Int32Array(256), out: fitColumnsOut(256) };
+let maskScratch = { xs: new Float64Array(256), ys: new Float64Array(256), kept: new Int32Array(256) };
 
 /**
  * The masked-outlier pass of masked-outliers.ts over one neighbourhood's range, on the lean fit:
@@ -360,9 +387,9 @@ function maskedOutliers(xs: Float64Array, ys: Float64Array, a: number, b: number
   if (worst < 0) return [];
   if (maskScratch.xs.length < n) {
     const size = Math.max(n, 2 * maskScratch.xs.length);
-    maskScratch = { xs: new Float64Array(size), ys: new Float64Array(size), kept: new Int32Array(size), out: fitColumnsOut(size) };
+    maskScratch = { xs: new Float64Array(size), ys: new Float64Array(size), kept: new Int32Array(size) };
   }
-  const { xs: kx, ys: ky, kept, out } = maskScratch;
+  const { xs: kx, ys: ky, kept } = maskScratch;
   const setAside = [worst];
   const isSetAside = new Uint8Array(n);
   isSetAside[worst] = 1;
@@ -375,21 +402,11 @@ function maskedOutliers(xs: Float64Array, ys: Float64Array, a: number, b: number
       ky[m] = ys[a + k];
       kept[m++] = k;
     }
-    const fit = leanFit(kx, ky, 0, m, out, undefined, confidence);
-    if (fit === null) return referenceMasking(xs, ys, a, b, full);
-    let worstK = -1;
-    for (let j = 0; j < m; j++) {
-      const t = Math.abs(out.external[j]);
-      if (t > OUTLIER_T && (worstK < 0 || t > worstT)) {
-        worstK = j;
-        worstT = t;
-      }
-    }
-    if (worstK < 0) break;
-    const index = kept[worstK];
-    if (!(full.state[a + index] & OUTLIER)) {
-      revealed.push({ index, point: pointAt(kx, ky, out.residual, out, worstK), setAside: [...setAside] });
-    }
+    const worstPoint = leanWorstPoint(kx, ky, m);
+    if (worstPoint === null) return referenceMasking(xs, ys, a, b, full);
+    if (worstPoint === undefined) break;
+    const index = kept[worstPoint.at];
+    if (!(full.state[a + index] & OUTLIER)) revealed.push({ index, point: worstPoint.point, setAside: [...setAside] });
     setAside.push(index);
     isSetAside[index] = 1;
   }
@@ -406,4 +423,54 @@ function referenceMasking(xs: Float64Array, ys: Float64Array, a: number, b: numb
     fullFit.push({ externallyStudentized: full.state[k] & HAS_EXTERNAL ? full.external[k] : null });
   }
   return revealMaskedOutliers(points, firstPass, fullFit);
+}
+
+/**
+ * The refit of a masking round over the first m points, reduced to what the round needs: the point
+ * with the largest externally studentized residual, when that exceeds 3, with all its figures.
+ * |t| = |r|·√((df − 1)/(df − r²)) grows with r² = e²/(s²·(1 − h)), so the largest e²/(1 − h)
+ * marks it, and only that point's figures are worked out. undefined: no outlier is left; null: the
+ * data are not ordinary (see leanFit), and the reference pass must decide.
+ */
+function leanWorstPoint(xs: Float64Array, ys: Float64Array, m: number): { at: number; point: FitPoint } | null | undefined {
+  const sums = leanSums(xs, ys, 0, m);
+  if (sums === null) return null;
+  const { xMean, yMean, sxx, syy, sxy } = sums;
+  const slope = sxy / sxx;
+  const invSxx = 1 / sxx, keep = (m - 1) / m;
+  let sse = 0, at = -1, largest = -1;
+  for (let j = 0; j < m; j++) {
+    const dx = xs[j] - xMean;
+    const e = ys[j] - yMean - slope * dx;
+    sse += e * e;
+    const ratio = (e * e) / Math.max(0, keep - dx * dx * invSxx);
+    if (ratio > largest || ratio !== ratio) {
+      if (ratio !== ratio) return null;
+      largest = ratio;
+      at = j;
+    }
+  }
+  if (!(sse > EXACT_FIT_TOLERANCE * EXACT_FIT_TOLERANCE * syy) || !Number.isFinite(largest)) return null;
+  const df = m - 2;
+  const s2 = sse / df;
+  const s = Math.sqrt(s2);
+  const dx = xs[at] - xMean;
+  const e = ys[at] - yMean - slope * dx;
+  const spread = dx * dx * invSxx;
+  const leverage = Math.min(1, 1 / m + spread);
+  const oneMinusLeverage = Math.max(0, keep - spread);
+  const internal = e / (s * Math.sqrt(oneMinusLeverage));
+  const denominator = df - internal * internal;
+  // The point with the smallest denominator decides for all: the reference pass where it cancels.
+  if (!(denominator > 1e-3 * df) || !(s2 * denominator > EXACT_FIT_TOLERANCE * EXACT_FIT_TOLERANCE * syy)) return null;
+  const external = internal * Math.sqrt((df - 1) / denominator);
+  const size = Math.abs(external);
+  if (!(size > OUTLIER_T)) return undefined;
+  const cooks = ((internal * internal) / 2) * (leverage / oneMinusLeverage);
+  const cutOff = 4 / m;
+  const state = HAS_INTERNAL | HAS_EXTERNAL | UNUSUAL | OUTLIER | (cooks > cutOff ? INFLUENTIAL : 0) | (leverage > cutOff ? HIGH_LEVERAGE : 0);
+  return {
+    at,
+    point: { x: xs[at], y: ys[at], fitted: yMean + slope * dx, residual: e, leverage, internallyStudentized: internal, externallyStudentized: external, cooksDistance: cooks, flags: flagsOf(state) },
+  };
 }

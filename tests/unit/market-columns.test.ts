@@ -16,14 +16,14 @@ const close = (actual: number | null, expected: number | null, what: string) => 
   expect(Math.abs(actual - expected) / scale, `${what}: ${actual} against ${expected}`).toBeLessThan(1e-9);
 };
 
-function columnsFit(points: Array<{ x: number; y: number }>, x0?: number): { fit: GroupFit; out: FitColumnsOut } {
+function columnsFit(points: Array<{ x: number; y: number }>, x0?: number): { fit: GroupFit; out: FitColumnsOut; figuresOnly: GroupFit } {
   const n = points.length;
   // Offset by 3 so that a range that does not start at 0 is exercised.
   const xs = new Float64Array(n + 5).fill(12345);
   const ys = new Float64Array(n + 5).fill(-7);
   points.forEach((p, i) => ((xs[i + 3] = p.x), (ys[i + 3] = p.y)));
   const out = fitColumnsOut(n + 5);
-  return { fit: fitRange(xs, ys, 3, 3 + n, out, x0, 0.95), out };
+  return { fit: fitRange(xs, ys, 3, 3 + n, out, x0, 0.95), out, figuresOnly: fitRange(xs, ys, 3, 3 + n, null, x0, 0.95) };
 }
 
 function pointOf(out: FitColumnsOut, points: Array<{ x: number; y: number }>, i: number): FitPoint {
@@ -40,9 +40,14 @@ function pointOf(out: FitColumnsOut, points: Array<{ x: number; y: number }>, i:
 
 function expectAgreement(points: Array<{ x: number; y: number }>, x0?: number) {
   const reference = fitLine(points, x0 === undefined ? {} : { x0 });
-  const { fit, out } = columnsFit(points, x0);
+  const { fit, out, figuresOnly } = columnsFit(points, x0);
   expect(fit.ok).toBe(reference.ok);
-  if (!reference.ok || !fit.ok) return;
+  expect(figuresOnly.ok).toBe(reference.ok);
+  if (!reference.ok || !fit.ok || !figuresOnly.ok) return;
+  // The fit without per-point figures (as the trends take it) must give the same summary.
+  for (const [key, value] of Object.entries(figuresOnly.summary)) {
+    if (typeof value === 'number') close(value, (fit.summary as unknown as Record<string, number>)[key], `figures only: ${key}`);
+  }
   const summary = fit.summary;
   for (const key of ['slope', 'intercept', 'r', 'rSquared', 'adjustedRSquared', 'sst', 'ssr', 'sse', 'residualStdError', 'slopeStdError', 'interceptStdError', 'slopeTStat', 'slopePValue', 'tCritical', 'xMean', 'yMean', 'xMin', 'xMax'] as const) {
     close(summary[key], reference[key], key);
