@@ -1,10 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readdir } from 'node:fs/promises';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { access, readdir } from 'node:fs/promises';
 import path from 'node:path';
 import sharp from 'sharp';
+import { eq } from 'drizzle-orm';
+import { db, pool } from '../../db/client';
+import { assignments } from '../../db/schema/assignments';
 import { env } from '../../server/env';
+import { photoStorage, setPhotoStorage } from '../../server/integrations/storage/photo-storage';
 import { createFirmWithAssignment, createSale, photoRows, saleRow, totalPhotoRows } from '../factories/assignments';
 import { exifHasGpsBlock, jpegWithGps, jpegWithOrientation6, oversizeFile, plainJpeg, pngBomb, textFile } from '../factories/images';
+import { createWorkflowAssignment, createWorkflowWorld, takeAction } from '../factories/workflow';
 import { expectErrorEnvelope, signedInAgent, startTestApi, stopTestApi, type Agent, type TestApi } from '../setup/test-api';
 
 let api: TestApi;
@@ -20,6 +25,18 @@ async function dataFiles(): Promise<string[]> {
   const root = path.resolve(env.DATA_DIR);
   const entries = await readdir(root, { recursive: true, withFileTypes: true }).catch(() => []);
   return entries.filter((e) => e.isFile()).map((e) => path.relative(root, path.join(e.parentPath, e.name))).sort();
+}
+
+/** Whether a file exists at this path relative to the data folder. */
+async function exists(relative: string): Promise<boolean> {
+  return access(path.resolve(env.DATA_DIR, relative)).then(() => true, () => false);
+}
+
+/** The two stored files of a photo, relative to the data folder (disk backend). */
+async function storedFilesOf(assignmentId: number, photoId: number): Promise<string[]> {
+  const row = (await photoRows(assignmentId)).find((r) => r.id === photoId);
+  if (!row) throw new Error(`no photo row ${photoId}`);
+  return ['display', 'thumb'].map((size) => path.join('photos', `${row.storageKey}-${size}.jpg`));
 }
 
 async function appraiserWithAssignment() {
@@ -195,6 +212,93 @@ describe('photo processing', () => {
     expect((await outsider.get(`/api/photos/${res.body.photos[0].id}/display`)).status).toBe(404);
     expect((await outsider.delete(`/api/photos/${res.body.photos[0].id}`)).status).toBe(404);
     expect((await upload(outsider, assignment.id, [{ bytes: await plainJpeg(), name: 'x.jpg' }])).status).toBe(404);
+  });
+});
+
+describe('deleting a photo removes its stored files', () => {
+  it('removes both sizes from the disk once the delete has committed, and only those', async () => {
+    const { agent, assignment } = await appraiserWithAssignment();
+    const res = await upload(agent, assignment.id, [
+      { bytes: await plainJpeg(), name: 'keep.jpg' },
+      { bytes: await plainJpeg(), name: 'drop.jpg' },
+    ]);
+    const [keep, drop] = res.body.photos as Array<{ id: number }>;
+    const dropFiles = await storedFilesOf(assignment.id, drop.id);
+    const keepFiles = await storedFilesOf(assignment.id, keep.id);
+    for (const file of [...dropFiles, ...keepFiles]) expect(await exists(file), file).toBe(true);
+
+    expect((await agent.delete(`/api/photos/${drop.id}`)).status).toBe(204);
+    for (const file of dropFiles) expect(await exists(file), file).toBe(false);
+    for (const file of keepFiles) expect(await exists(file), file).toBe(true);
+    expect((await agent.get(`/api/photos/${keep.id}/thumb`)).status).toBe(200);
+  });
+
+  it('keeps the files when the delete transaction fails', async () => {
+    const { agent, assignment } = await appraiserWithAssignment();
+    const res = await upload(agent, assignment.id, [{ bytes: await plainJpeg(), name: 'front.jpg' }]);
+    const photoId = res.body.photos[0].id as number;
+    const files = await storedFilesOf(assignment.id, photoId);
+    // The audit row the delete writes last is refused for this one photo: the transaction rolls back.
+    const fn = `refuse_photo_delete_${photoId}`;
+    await pool.query(`create function ${fn}() returns trigger language plpgsql as $$ begin
+      if new.action = 'photo-deleted' and new.entity_id = '${photoId}' then raise exception 'refused by the test'; end if;
+      return new; end $$`);
+    await pool.query(`create trigger ${fn} before insert on audit_events for each row execute function ${fn}()`);
+    try {
+      const del = await agent.delete(`/api/photos/${photoId}`);
+      expect(del.status).toBe(500);
+    } finally {
+      await pool.query(`drop trigger ${fn} on audit_events`);
+      await pool.query(`drop function ${fn}()`);
+    }
+    expect((await photoRows(assignment.id))[0].deletedAt).toBeNull();
+    for (const file of files) expect(await exists(file), file).toBe(true);
+    expect((await agent.get(`/api/photos/${photoId}/display`)).status).toBe(200);
+  });
+
+  it('logs a file that cannot be removed and still answers 204', async () => {
+    const { agent, assignment } = await appraiserWithAssignment();
+    const res = await upload(agent, assignment.id, [{ bytes: await plainJpeg(), name: 'front.jpg' }]);
+    const photoId = res.body.photos[0].id as number;
+    const disk = photoStorage();
+    const failing = { ...disk, delete: async (key: string) => { throw new Error(`storage unavailable for ${key}`); } };
+    const logged = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    setPhotoStorage(failing);
+    try {
+      expect((await agent.delete(`/api/photos/${photoId}`)).status).toBe(204);
+    } finally {
+      setPhotoStorage(disk);
+    }
+    const lines = logged.mock.calls.map((args) => args.map(String).join(' '));
+    logged.mockRestore();
+    const [row] = await photoRows(assignment.id);
+    for (const size of ['display', 'thumb']) {
+      expect(lines.some((line) => line.includes(`photo ${photoId}`) && line.includes(`${row.storageKey}-${size}.jpg`)), size).toBe(true);
+    }
+    expect(row.deletedAt).toBeInstanceOf(Date);
+    expect((await agent.get(`/api/photos/${photoId}/display`)).status).toBe(404);
+  });
+
+  it('keeps the files of a photo that a signed report version froze, and the report still shows it', async () => {
+    const world = await createWorkflowWorld(api);
+    const assignment = await createWorkflowAssignment(world, 'in_progress');
+    const agent = world.agents.appraiser;
+    const res = await upload(agent, assignment.id, [{ bytes: await plainJpeg(), name: 'street.jpg' }], assignment.gridSaleIds[0]);
+    const photoId = res.body.photos[0].id as number;
+    const files = await storedFilesOf(assignment.id, photoId);
+    await db.update(assignments).set({ status: 'approved' }).where(eq(assignments.id, assignment.id));
+    const version = async () => (await db.select({ v: assignments.version }).from(assignments).where(eq(assignments.id, assignment.id)))[0].v;
+    const signed = await takeAction(agent, assignment.id, 'sign', await version());
+    expect(signed.status).toBe(201);
+    const reportVersionId = signed.body.reportVersionId as number;
+    const draft = await agent.post(`/api/assignments/${assignment.id}/new-draft`).send({ version: await version(), reason: 'Photo of the wrong house.' });
+    expect(draft.status).toBe(200);
+
+    expect((await agent.delete(`/api/photos/${photoId}`)).status).toBe(204);
+    expect((await agent.get(`/api/photos/${photoId}/display`)).status).toBe(404);
+    for (const file of files) expect(await exists(file), file).toBe(true);
+    const shown = await world.agents.client.get(`/api/reports/${reportVersionId}/photos/${photoId}/thumb`);
+    expect(shown.status).toBe(200);
   });
 });
 

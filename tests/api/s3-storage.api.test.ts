@@ -7,6 +7,9 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import S3rver from 's3rver';
 import sharp from 'sharp';
+import { eq } from 'drizzle-orm';
+import { db } from '../../db/client';
+import { photos } from '../../db/schema/assignments';
 import { s3Storage } from '../../server/integrations/storage/s3-storage';
 import { photoStorage, setPhotoStorage } from '../../server/integrations/storage/photo-storage';
 import type { FileStorage } from '../../server/integrations/storage/storage';
@@ -68,5 +71,29 @@ describe('S3-compatible photo storage', () => {
     setPhotoStorage(diskStorage);
     // The disk never saw it: the bytes came from the bucket.
     expect((await agent.get(`/api/photos/${photoId}/display`)).status).toBe(404);
+  });
+
+  it('deletes both objects of a photo from the bucket when the photo is deleted through the API', async () => {
+    const deleted: string[] = [];
+    // The bucket backend itself, with its delete calls recorded on the way through.
+    const recording: FileStorage = { ...storage, delete: async (key) => { deleted.push(key); await storage.delete(key); } };
+    setPhotoStorage(recording);
+    try {
+      const { appraiser, assignment } = await createFirmWithAssignment();
+      const agent = await signedInAgent(api, appraiser);
+      const jpeg = await sharp({ create: { width: 40, height: 30, channels: 3, background: { r: 140, g: 60, b: 30 } } }).jpeg().toBuffer();
+      const upload = await agent.post(`/api/assignments/${assignment.id}/photos`).attach('files', jpeg, { filename: 'gable.jpg', contentType: 'image/jpeg' });
+      expect(upload.status).toBe(201);
+      const photoId = upload.body.photos[0].id as number;
+      const [row] = await db.select({ storageKey: photos.storageKey }).from(photos).where(eq(photos.id, photoId));
+      const keys = [`${row.storageKey}-display.jpg`, `${row.storageKey}-thumb.jpg`];
+      for (const key of keys) expect(await storage.get(key), key).not.toBeNull();
+
+      expect((await agent.delete(`/api/photos/${photoId}`)).status).toBe(204);
+      expect([...deleted].sort()).toEqual([...keys].sort());
+      for (const key of keys) expect(await storage.get(key), key).toBeNull();
+    } finally {
+      setPhotoStorage(diskStorage);
+    }
   });
 });

@@ -3,10 +3,12 @@ import { and, asc, eq, isNull, sql } from 'drizzle-orm';
 import { db } from '../../../db/client';
 import { photos, sales } from '../../../db/schema/assignments';
 import type { SessionUser } from '../../contracts/auth';
+import { photoSizes } from '../../contracts/photos';
 import { notFound } from '../../errors';
 import { photoStorage } from '../../integrations/storage/photo-storage';
 import { audit } from '../audit/audit.service';
 import { assertEditable, loadAssignmentFor } from '../assignments/assignment-access';
+import { photoFrozenInReport } from '../reports/reports.repo';
 import { findSale } from '../sales/sales.repo';
 import { processPhoto, type ProcessedPhoto } from './photo-pipeline';
 
@@ -75,16 +77,32 @@ export async function readPhoto(user: SessionUser, photoId: number, size: 'thumb
   return bytes;
 }
 
-/** Soft delete: the row stays for the record; a sale whose cover it was gets its next photo. */
+/** Soft delete: the row stays for the record; a sale whose cover it was gets its next photo. The
+ * files go once the transaction has committed (a rolled-back delete keeps them), unless a signed
+ * report version froze the photo: that report still shows it. */
 export async function deletePhoto(user: SessionUser, photoId: number) {
   const row = await findPhotoFor(user, photoId);
   assertEditable(await loadAssignmentFor(db, user, row.assignmentId));
-  await db.transaction(async (tx) => {
+  const frozen = await db.transaction(async (tx) => {
     await tx.update(photos).set({ deletedAt: sql`now()` }).where(eq(photos.id, photoId));
     if (row.saleId !== null) {
       const next = sql`(select id from ${photos} where ${photos.saleId} = ${row.saleId} and ${photos.deletedAt} is null order by id limit 1)`;
       await tx.update(sales).set({ coverPhotoId: next }).where(and(eq(sales.id, row.saleId), eq(sales.coverPhotoId, photoId)));
     }
-    await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'photo-deleted', entityType: 'photo', entityId: photoId, details: { assignmentId: row.assignmentId, saleId: row.saleId } });
+    const inReport = await photoFrozenInReport(tx, row.assignmentId, photoId);
+    await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'photo-deleted', entityType: 'photo', entityId: photoId, details: { assignmentId: row.assignmentId, saleId: row.saleId, filesKept: inReport } });
+    return inReport;
+  });
+  if (!frozen) await removePhotoFiles(photoId, row.storageKey);
+}
+
+/** Removes both sizes of a deleted photo. The delete has already committed, so a file that cannot
+ * be removed is logged for an operator to clear, never reported to the user as a failed delete. */
+async function removePhotoFiles(photoId: number, storageKey: string) {
+  const storage = photoStorage();
+  const keys = photoSizes.map((size) => `${storageKey}-${size}.jpg`);
+  const results = await Promise.allSettled(keys.map((key) => storage.delete(key)));
+  results.forEach((result, i) => {
+    if (result.status === 'rejected') console.error(`photo ${photoId}: could not remove stored file ${keys[i]}:`, (result.reason as Error)?.message ?? result.reason);
   });
 }

@@ -1,4 +1,4 @@
-import { and, desc, eq, max } from 'drizzle-orm';
+import { and, desc, eq, max, sql } from 'drizzle-orm';
 import type { DbOrTx } from '../../../db/client';
 import { assignments } from '../../../db/schema/assignments';
 import { reportVersions } from '../../../db/schema/delivery';
@@ -54,4 +54,15 @@ export async function findBySha(tx: DbOrTx, sha256: string) {
 export async function nextVersionNumber(tx: DbOrTx, assignmentId: number): Promise<number> {
   const [row] = await tx.select({ n: max(reportVersions.versionNumber) }).from(reportVersions).where(eq(reportVersions.assignmentId, assignmentId));
   return (row?.n ?? 0) + 1;
+}
+
+/** Whether a signed version of the assignment froze this photo: its files must then stay, because
+ * the old report still shows them. */
+export async function photoFrozenInReport(tx: DbOrTx, assignmentId: number, photoId: number): Promise<boolean> {
+  const [row] = await tx
+    .select({ id: reportVersions.id })
+    .from(reportVersions)
+    .where(and(eq(reportVersions.assignmentId, assignmentId), sql`${reportVersions.snapshot} -> 'photos' @> ${JSON.stringify([{ id: photoId }])}::jsonb`))
+    .limit(1);
+  return row !== undefined;
 }
