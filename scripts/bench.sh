@@ -5,7 +5,7 @@ source "$(dirname "$0")/lib/common.sh"
 cd "$ROOT"
 BENCH_PGPORT="${BENCH_PGPORT:-54349}"
 ensure_node_modules
-ensure_debian_packages postgres:postgresql chromium:chromium
+ensure_debian_packages postgres:postgresql chromium:chromium wrk:wrk
 BENCH_ROOT="$(mktemp -d /tmp/compline-bench.XXXXXX)"; chmod 755 "$BENCH_ROOT"
 PGDATA_DIR="$BENCH_ROOT/pg"
 cleanup() { stop_cluster "$PGDATA_DIR"; rm -rf "$BENCH_ROOT"; }
