@@ -8,7 +8,7 @@ import { conflict, notFound, staleVersion, unprocessable } from '../../errors';
 import { enqueueMail } from '../../integrations/mail/outbox';
 import { audit } from '../audit/audit.service';
 import { insertAssignment } from '../assignments/assignments.service';
-import { recordStatusChange } from '../review/workflow.service';
+import { recordStatusChange } from '../review/status-changes';
 import { findActiveAppraiser, lockOrder, type OrderRow } from './orders.repo';
 import { getOrder, loadOrderFor } from './orders.service';
 

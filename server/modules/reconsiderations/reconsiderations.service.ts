@@ -14,7 +14,7 @@ import { enqueueMail } from '../../integrations/mail/outbox';
 import { audit } from '../audit/audit.service';
 import { bumpDataRevision } from '../assignments/assignments.repo';
 import { loadAssignmentFor } from '../assignments/assignment-access';
-import { recordStatusChange } from '../review/workflow.service';
+import { recordStatusChange } from '../review/status-changes';
 import { userById } from '../review/review.repo';
 import { readableVersion } from '../reports/reports.service';
 import { withNeighbourhood } from '../sales/sales.service';

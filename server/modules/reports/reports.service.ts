@@ -11,7 +11,7 @@ import { enqueueMail } from '../../integrations/mail/outbox';
 import { formatMoney } from '../../analysis/format-money';
 import { audit } from '../audit/audit.service';
 import { loadAssignmentFor } from '../assignments/assignment-access';
-import { recordStatusChange } from '../review/workflow.service';
+import { recordStatusChange } from '../review/status-changes';
 import { canonicalJson, sha256Hex } from './canonical-json';
 import { findBySha, findReportVersion, listReportVersions, nextVersionNumber } from './reports.repo';
 import { buildSnapshot } from './snapshot';

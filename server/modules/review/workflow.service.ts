@@ -1,30 +1,16 @@
 import { and, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
-import { db, type DbOrTx } from '../../../db/client';
+import { db } from '../../../db/client';
 import { assignments } from '../../../db/schema/assignments';
-import { statusChanges } from '../../../db/schema/review';
 import type { SessionUser } from '../../contracts/auth';
-import { statusLabels, type AssignmentStatus } from '../../contracts/assignments';
+import { statusLabels } from '../../contracts/assignments';
 import type { transitionRequest, WorkflowAction } from '../../contracts/review';
 import { conflict, forbidden, staleVersion, unprocessable } from '../../errors';
 import { enqueueMail } from '../../integrations/mail/outbox';
-import { audit } from '../audit/audit.service';
 import { loadAssignmentFor } from '../assignments/assignment-access';
 import { buildGrid } from '../grid/grid.service';
 import { activeFirmUsers, unresolvedQueryCount, userById } from './review.repo';
-
-/** The server-enforced workflow: which action moves which status where, and who may take it.
- * Signing (approved → signed) belongs to the report module. */
-export const TRANSITIONS: Record<WorkflowAction, { from: readonly AssignmentStatus[]; to: AssignmentStatus; role: 'appraiser' | 'reviewer' }> = {
-  submit: { from: ['in_progress', 'revisions_requested'], to: 'in_review', role: 'appraiser' },
-  'request-revisions': { from: ['in_review'], to: 'revisions_requested', role: 'reviewer' },
-  approve: { from: ['in_review'], to: 'approved', role: 'reviewer' },
-};
-
-export async function recordStatusChange(tx: DbOrTx, assignmentId: number, from: AssignmentStatus | null, to: AssignmentStatus, user: SessionUser, note: string | null) {
-  await tx.insert(statusChanges).values({ assignmentId, fromStatus: from, toStatus: to, byUserId: user.id, note });
-  await audit(tx, { actorUserId: user.id, organisationId: user.organisationId, action: 'status-changed', entityType: 'assignment', entityId: assignmentId, details: { from, to, note } });
-}
+import { recordStatusChange, TRANSITIONS } from './status-changes';
 
 export async function transition(user: SessionUser, assignmentId: number, input: z.infer<typeof transitionRequest>, appOrigin: string) {
   const rule = TRANSITIONS[input.action];
