@@ -59,11 +59,14 @@ export interface PortElleryScenario {
   sales: PortEllerySale[];
   plantedAnomalies: PlantedAnomaly[];
   subject: PortEllerySubject;
+  /** The subject of the demo's second assignment, the one already with the reviewer. */
+  reviewSubject: PortEllerySubject;
 }
 
 type SaleDraft = Omit<PortEllerySale, 'key'> & { anomaly?: Omit<PlantedAnomaly, 'saleKey'>; drawOrder: number };
 
 const SUBJECT_ADDRESS = '14 Lantern Lane';
+const REVIEW_SUBJECT_ADDRESS = '9 Cobble Lane';
 const METRES_PER_HOUSE_NUMBER_PAIR = 20;
 const MAX_METRES_FROM_STREET = 60;
 const MIN_METRES_FROM_STREET = 12;
@@ -224,19 +227,20 @@ function drawAnomalies(rng: Random, n: NeighbourhoodModel, used: Set<string>, fi
   ];
 }
 
-/** 14 Lantern Lane: 130 m along the lane, 18 m back on its even (right-hand) side. */
-function subjectSite() {
-  const lane = streetLines.find(({ street }) => street.name === 'Lantern Lane')!;
-  const front = along(lane.line, 130, { units: 'meters' });
-  const ahead = along(lane.line, 140, { units: 'meters' });
-  const site = destination(front, 18, bearing(front, ahead) + 90, { units: 'meters' });
+/** A house site `metresBack` off a street, `metresAlong` it from its first vertex, on its right-hand
+ * (even-numbered) or left-hand (odd-numbered) side. */
+function siteOnStreet(streetName: string, metresAlong: number, side: 'left' | 'right', metresBack: number) {
+  const street = streetLines.find(({ street: s }) => s.name === streetName)!;
+  const front = along(street.line, metresAlong, { units: 'meters' });
+  const ahead = along(street.line, metresAlong + 10, { units: 'meters' });
+  const site = destination(front, metresBack, bearing(front, ahead) + (side === 'right' ? 90 : -90), { units: 'meters' });
   const [lon, lat] = site.geometry.coordinates;
   return { lon: round6(lon), lat: round6(lat) };
 }
 
 export function generatePortEllery(seed = 20261115): PortElleryScenario {
   const rng = createRandom(seed);
-  const usedAddresses = new Set<string>([SUBJECT_ADDRESS]);
+  const usedAddresses = new Set<string>([SUBJECT_ADDRESS, REVIEW_SUBJECT_ADDRESS]);
   const drafts: SaleDraft[] = [];
   for (const n of NEIGHBOURHOODS) {
     const anomalies = n.slug === 'quarry-hill' ? drawAnomalies(rng, n, usedAddresses, drafts.length) : [];
@@ -261,12 +265,21 @@ export function generatePortEllery(seed = 20261115): PortElleryScenario {
     neighbourhoods: structuredClone(NEIGHBOURHOODS) as NeighbourhoodModel[],
     sales,
     plantedAnomalies,
+    // 14 Lantern Lane: 130 m along the lane, 18 m back on its even (right-hand) side.
     subject: {
       address: SUBJECT_ADDRESS,
       neighbourhood: quarryHill.slug,
-      ...subjectSite(),
+      ...siteOnStreet('Lantern Lane', 130, 'right', 18),
       floorArea: 1_850, lotSize: 7_250, bedrooms: 3, bathrooms: 2,
       yearBuilt: 1958, condition: 3, quality: 3, garageSpaces: 1,
+    },
+    // 9 Cobble Lane: 90 m along the lane, 16 m back on its odd (left-hand) side.
+    reviewSubject: {
+      address: REVIEW_SUBJECT_ADDRESS,
+      neighbourhood: quarryHill.slug,
+      ...siteOnStreet('Cobble Lane', 90, 'left', 16),
+      floorArea: 1_720, lotSize: 6_800, bedrooms: 3, bathrooms: 2,
+      yearBuilt: 1949, condition: 3, quality: 3, garageSpaces: 1,
     },
   };
 }

@@ -14,24 +14,40 @@ export interface PortElleryAssignmentInput {
   subjectAddress: string;
 }
 
-/** Inserts one assignment with the Port Ellery subject and every generated market sale; returns its
- * id. The demo seed calls it once; test factories call it for copies of their own. */
-export async function insertPortElleryAssignment(tx: DbOrTx, input: PortElleryAssignmentInput): Promise<number> {
+/** Which generated house is the subject, and the file's own loan, due date and inspection note. */
+export interface PortElleryFile {
+  subject: 'lantern-lane' | 'review';
+  loanReference: string;
+  dueDate: string;
+  subjectNotes: string;
+}
+
+const LANTERN_LANE_FILE: PortElleryFile = {
+  subject: 'lantern-lane',
+  loanReference: 'HM-2026-0419',
+  dueDate: '2026-12-10',
+  subjectNotes: 'Single-storey house on a quiet lane; inspected 2026-11-12.',
+};
+
+/** Inserts one assignment with a Port Ellery subject (14 Lantern Lane unless `file` says otherwise)
+ * and every generated market sale; returns its id. The demo seed calls it for its two files; test
+ * factories call it for copies of their own. */
+export async function insertPortElleryAssignment(tx: DbOrTx, input: PortElleryAssignmentInput, file: PortElleryFile = LANTERN_LANE_FILE): Promise<number> {
   const scenario = generatePortEllery();
   const [assignment] = await tx
     .insert(assignments)
     .values({
       ...input,
       intendedUse: 'Mortgage lending decision for a purchase loan (first lien)',
-      loanReference: 'HM-2026-0419',
+      loanReference: file.loanReference,
       effectiveDate: scenario.effectiveDate,
-      dueDate: '2026-12-10',
+      dueDate: file.dueDate,
       areaUnit: 'sqft',
       currency: scenario.currency,
     })
     .returning({ id: assignments.id });
   const neighbourhoodName = (slug: string) => scenario.neighbourhoods.find((n) => n.slug === slug)!.name;
-  const { subject } = scenario;
+  const subject = file.subject === 'review' ? scenario.reviewSubject : scenario.subject;
   await tx.insert(subjects).values({
     assignmentId: assignment.id,
     lon: subject.lon,
@@ -45,7 +61,7 @@ export async function insertPortElleryAssignment(tx: DbOrTx, input: PortElleryAs
     condition: subject.condition,
     quality: subject.quality,
     garageSpaces: subject.garageSpaces,
-    notes: 'Single-storey house on a quiet lane; inspected 2026-11-12.',
+    notes: file.subjectNotes,
   });
   await tx.insert(sales).values(
     scenario.sales.map(({ key: _key, neighbourhood, saleType, ...sale }) => ({

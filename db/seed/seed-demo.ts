@@ -5,6 +5,7 @@ import { hashPassword } from '../../server/modules/auth/password';
 import { DEMO_PASSWORD, demoOrganisations, demoUsers } from './demo-accounts';
 import { seedDemoAssignment } from './seed-assignment';
 import { seedDemoFees } from './seed-fees';
+import { seedDemoReviewAssignment } from './seed-review-assignment';
 
 /** Seeds the Port Ellery demo. Idempotent: rows are matched by natural keys (organisation name,
  * e-mail), so a second run adds nothing and never touches what users added or changed. */
@@ -27,5 +28,6 @@ export async function seedDemo(db: Db): Promise<void> {
     }
   });
   await seedDemoAssignment(db);
+  await seedDemoReviewAssignment(db);
   await seedDemoFees(db);
 }

@@ -2,6 +2,7 @@ import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_FIRM, DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { DEMO_SUBJECT_ADDRESS } from '../../db/seed/seed-assignment';
+import { DEMO_REVIEW_SUBJECT_ADDRESS } from '../../db/seed/seed-review-assignment';
 import { roleLabels, type Role } from '../../server/contracts/auth';
 import {
   launchBrowser,
@@ -143,6 +144,41 @@ describe('signing in to Compline in a real browser', () => {
       [...document.fonts].filter((face) => face.status === 'loaded').map((face) => `${face.family.replace(/"/g, '')} ${face.weight}`),
     );
     expect(loadedFaces).toEqual(expect.arrayContaining(['Public Sans 400', 'Public Sans 600', 'IBM Plex Mono 400']));
+
+    expectCleanPage(watch);
+    await page.close();
+  });
+
+  it('gives the demo reviewer a file waiting in the queue, which opens at its review with the submission on its timeline', async () => {
+    const page = await browser.context.newPage();
+    const watch = watchPage(page);
+    await page.goto(`${app.baseUrl}/sign-in`);
+    await signIn(page, account('reviewer').email, DEMO_PASSWORD);
+    await heading(page, 'Review queue').waitFor();
+
+    const queue = page.getByRole('table', { name: 'Assignments waiting for review' });
+    const row = queue.getByRole('row', { name: new RegExp(DEMO_REVIEW_SUBJECT_ADDRESS) });
+    await row.waitFor();
+    await expect(row.innerText()).resolves.toMatch(/In review/);
+    await expect(row.innerText()).resolves.toContain(account('appraiser').name);
+    // The demo file still being built is not the reviewer's yet.
+    expect(await queue.getByRole('row', { name: new RegExp(DEMO_SUBJECT_ADDRESS) }).count()).toBe(0);
+    await settled(page);
+    await saveScreenshot(page, 'reviewer-demo-queue');
+
+    await row.getByRole('link', { name: DEMO_REVIEW_SUBJECT_ADDRESS }).click();
+    await page.waitForURL(/\/assignments\/\d+\/review$/);
+    await heading(page, DEMO_REVIEW_SUBJECT_ADDRESS).waitFor();
+    const timeline = page.getByRole('list', { name: 'Status timeline' });
+    await timeline.waitFor();
+    const steps = await timeline.getByRole('listitem').allInnerTexts();
+    expect(steps).toHaveLength(1);
+    expect(steps[0]).toContain('Submitted for review');
+    expect(steps[0]).toContain(account('appraiser').name);
+    await expect(page.getByTestId('assignment-status').innerText()).resolves.toBe('In review');
+    await page.getByTestId('flagged-sale').first().waitFor();
+    await settled(page);
+    await saveScreenshot(page, 'reviewer-demo-review');
 
     expectCleanPage(watch);
     await page.close();

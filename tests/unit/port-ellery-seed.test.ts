@@ -7,6 +7,7 @@ import { linearRegression, sampleCorrelation } from 'simple-statistics';
 import { describe, expect, it } from 'vitest';
 import { generatePortEllery, type PortEllerySale } from '../../db/seed/port-ellery';
 import { createRandom } from '../../db/seed/random';
+import { DEMO_REVIEW_GRID_SALES } from '../../db/seed/seed-review-assignment';
 import type { NeighbourhoodModel } from '../../db/seed/port-ellery-model';
 
 const basemapDir = fileURLToPath(new URL('../../public/basemap', import.meta.url));
@@ -16,7 +17,7 @@ const streetsMap = readCollection<LineString>('streets.geojson');
 const neighbourhoodsMap = readCollection<Polygon>('neighbourhoods.geojson');
 
 const scenario = generatePortEllery();
-const { sales, plantedAnomalies, subject } = scenario;
+const { sales, plantedAnomalies, subject, reviewSubject } = scenario;
 const quarryHill = scenario.neighbourhoods.find((n) => n.slug === 'quarry-hill')!;
 
 const DAY = 86_400_000;
@@ -86,7 +87,7 @@ describe('generatePortEllery', () => {
       const metres = pointToLineDistance(point([s.lon, s.lat]), lineString(street!.geometry.coordinates), { units: 'meters' });
       expect(metres, s.address).toBeLessThan(100);
     }
-    const addresses = [...sales.map((s) => s.address), subject.address];
+    const addresses = [...sales.map((s) => s.address), subject.address, reviewSubject.address];
     expect(new Set(addresses).size).toBe(addresses.length);
   });
 
@@ -117,6 +118,45 @@ describe('generatePortEllery', () => {
     expect(subject.floorArea).toBeGreaterThanOrEqual(1_800);
     expect(subject.floorArea).toBeLessThanOrEqual(1_900);
     expect(subject).toMatchObject({ bedrooms: 3, bathrooms: 2 });
+  });
+});
+
+describe('the subject of the demo file already in review', () => {
+  const cobbleLane = streetsMap.features.find((f) => f.properties.name === 'Cobble Lane')!;
+
+  it('stands on the odd (west) side of Cobble Lane, near it, inside Quarry Hill', () => {
+    expect(reviewSubject.address).toBe('9 Cobble Lane');
+    expect(reviewSubject.neighbourhood).toBe('quarry-hill');
+    expect(booleanPointInPolygon(point([reviewSubject.lon, reviewSubject.lat]), polygon([quarryHill.polygon]))).toBe(true);
+    const metres = pointToLineDistance(point([reviewSubject.lon, reviewSubject.lat]), lineString(cobbleLane.geometry.coordinates), { units: 'meters' });
+    expect(metres).toBeGreaterThan(10);
+    expect(metres).toBeLessThan(25);
+    // The lane runs north, so its left-hand (odd) side lies west of it.
+    const [laneLon] = cobbleLane.geometry.coordinates[0];
+    expect(reviewSubject.lon).toBeLessThan(laneLon);
+  });
+
+  it('is another house than 14 Lantern Lane, an ordinary Quarry Hill one', () => {
+    expect(reviewSubject).not.toEqual(subject);
+    expect(reviewSubject.floorArea).toBeGreaterThan(quarryHill.floorArea.mean - quarryHill.floorArea.sd);
+    expect(reviewSubject.floorArea).toBeLessThan(quarryHill.floorArea.mean + quarryHill.floorArea.sd);
+    expect(reviewSubject.yearBuilt).toBeGreaterThanOrEqual(quarryHill.yearBuilt.from);
+    expect(reviewSubject.yearBuilt).toBeLessThanOrEqual(quarryHill.yearBuilt.to);
+  });
+
+  it('has grid sales that are recent arm’s-length Quarry Hill sales around its floor area, none of them planted', () => {
+    const planted = new Set(plantedAnomalies.map((a) => a.saleKey));
+    const grid = DEMO_REVIEW_GRID_SALES.map((address) => sales.find((s) => s.address === address));
+    for (const [i, sale] of grid.entries()) {
+      expect(sale, DEMO_REVIEW_GRID_SALES[i]).toBeDefined();
+      expect(sale!.neighbourhood).toBe('quarry-hill');
+      expect(sale!.saleType).toBe('arms-length');
+      expect(planted.has(sale!.key)).toBe(false);
+      expect(sale!.saleDate >= '2025-11-15', sale!.address).toBe(true);
+    }
+    const areas = grid.map((s) => s!.floorArea);
+    expect(Math.min(...areas)).toBeLessThan(reviewSubject.floorArea);
+    expect(Math.max(...areas)).toBeGreaterThan(reviewSubject.floorArea);
   });
 });
 
