@@ -8,7 +8,7 @@ import type { SaleLookup } from '../lib/sale-lookup';
 import { FitLayer, OffScaleMarks, SaleMark, SubjectMark, type SalePoint } from './chart-marks';
 import { inRange } from '../lib/focus-range';
 import { SaleTooltip } from './sale-tooltip';
-import { axisLabel, axisLine, axisTick, gridStroke } from './chart-style';
+import { gridStroke, xAxisProps, yAxisProps } from './chart-style';
 
 interface PricePoint extends SalePoint {
   fitted: number;
@@ -63,31 +63,8 @@ export function PriceAreaChart({ group, flagsById, format, lookup, timeAdjusted,
     <ResponsiveContainer width="100%" height={height}>
       <ScatterChart margin={{ top: 16, right: 28, bottom: 30, left: 4 }}>
         <CartesianGrid stroke={gridStroke} vertical={false} />
-        <XAxis
-          type="number"
-          dataKey="x"
-          domain={x.domain}
-          ticks={x.ticks}
-          allowDataOverflow
-          tickFormatter={(v: number) => format.areaNumber(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: `Floor area (${format.unit})`, position: 'insideBottom', offset: -18 }}
-        />
-        <YAxis
-          type="number"
-          dataKey="y"
-          domain={y.domain}
-          ticks={y.ticks}
-          allowDataOverflow
-          width={72}
-          tickFormatter={(v: number) => format.compactMoney(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: timeAdjusted ? 'Time-adjusted price' : 'Sale price', angle: -90, position: 'insideLeft', offset: 2, style: { textAnchor: 'middle' } }}
-        />
+        <XAxis {...xAxisProps({ scale: x, format: (v) => format.areaNumber(v), label: `Floor area (${format.unit})` })} />
+        <YAxis {...yAxisProps({ scale: y, format: (v) => format.compactMoney(v), label: timeAdjusted ? 'Time-adjusted price' : 'Sale price' })} />
         <ZIndexLayer zIndex={DefaultZIndexes.area}>
           <FitLayer band={band} />
         </ZIndexLayer>

@@ -7,7 +7,7 @@ import type { Flag } from '../lib/flag-words';
 import { describeFlags } from '../lib/flag-words';
 import type { SaleLookup } from '../lib/sale-lookup';
 import { SaleMark, type SalePoint } from './chart-marks';
-import { axisLabel, axisLine, axisTick, gridStroke } from './chart-style';
+import { axisLabel, gridStroke, xAxisProps, yAxisProps } from './chart-style';
 import { SaleTooltip } from './sale-tooltip';
 
 interface ResidualPoint extends SalePoint {
@@ -47,31 +47,8 @@ export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus
     <ResponsiveContainer width="100%" height={height}>
       <ScatterChart margin={{ top: 10, right: 16, bottom: 30, left: 4 }}>
         <CartesianGrid stroke={gridStroke} vertical={false} />
-        <XAxis
-          type="number"
-          dataKey="x"
-          domain={x.domain}
-          ticks={x.ticks}
-          allowDataOverflow
-          tickFormatter={(v: number) => format.compactMoney(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: 'Fitted price', position: 'insideBottom', offset: -18 }}
-        />
-        <YAxis
-          type="number"
-          dataKey="y"
-          domain={y.domain}
-          ticks={y.ticks}
-          allowDataOverflow
-          width={72}
-          tickFormatter={(v: number) => format.compactMoney(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: 'Residual', angle: -90, position: 'insideLeft', offset: 2, style: { textAnchor: 'middle' } }}
-        />
+        <XAxis {...xAxisProps({ scale: x, format: (v) => format.compactMoney(v), label: 'Fitted price' })} />
+        <YAxis {...yAxisProps({ scale: y, format: (v) => format.compactMoney(v), label: 'Residual' })} />
         {s > 0 && <ReferenceLine y={2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '+2s', position: 'insideTopRight', ...axisLabel, fontSize: 11 }} />}
         {s > 0 && <ReferenceLine y={-2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '−2s', position: 'insideBottomRight', ...axisLabel, fontSize: 11 }} />}
         <ReferenceLine y={0} stroke="var(--color-ink)" strokeWidth={1.5} />

@@ -5,7 +5,7 @@ import type { FigureFormat } from '../lib/figure-format';
 import { predictionBand } from '../lib/prediction-band';
 import type { SaleLookup } from '../lib/sale-lookup';
 import { FitLayer, SaleMark, type SalePoint } from './chart-marks';
-import { axisLabel, axisLine, axisTick, gridStroke } from './chart-style';
+import { gridStroke, xAxisProps, yAxisProps } from './chart-style';
 import { SaleTooltip } from './sale-tooltip';
 
 interface Props {
@@ -36,31 +36,14 @@ export function TrendChart({ trend, flaggedIds, format, lookup, onOpen, height }
       <ScatterChart margin={{ top: 10, right: 16, bottom: 30, left: 4 }}>
         <CartesianGrid stroke={gridStroke} vertical={false} />
         <XAxis
-          type="number"
-          dataKey="x"
           reversed
-          domain={[Math.max(0, x.domain[0]), x.domain[1]]}
-          ticks={x.ticks.filter((t) => t >= 0)}
-          allowDataOverflow
-          tickFormatter={(v: number) => format.count(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: 'Months before the effective date', position: 'insideBottom', offset: -18 }}
+          {...xAxisProps({
+            scale: { domain: [Math.max(0, x.domain[0]), x.domain[1]], ticks: x.ticks.filter((t) => t >= 0) },
+            format: (v) => format.count(v),
+            label: 'Months before the effective date',
+          })}
         />
-        <YAxis
-          type="number"
-          dataKey="y"
-          domain={y.domain}
-          ticks={y.ticks}
-          allowDataOverflow
-          width={72}
-          tickFormatter={(v: number) => format.compactMoney(v)}
-          tick={axisTick}
-          axisLine={axisLine}
-          tickLine={axisLine}
-          label={{ ...axisLabel, value: `Price per ${format.unit}`, angle: -90, position: 'insideLeft', offset: 2, style: { textAnchor: 'middle' } }}
-        />
+        <YAxis {...yAxisProps({ scale: y, format: (v) => format.compactMoney(v), label: `Price per ${format.unit}` })} />
         <ZIndexLayer zIndex={DefaultZIndexes.area}>
           <FitLayer band={line} showBand={false} />
         </ZIndexLayer>
