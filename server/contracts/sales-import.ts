@@ -1,5 +1,10 @@
 import { z } from 'zod';
 
+/** Rows one import may hold: far beyond any comparable search, and a bound on the memory and the
+ * single transaction of an import (a 60 MB file could otherwise carry most of a million rows). The
+ * server enforces it; the import panel states it. */
+export const MAX_IMPORT_ROWS = 100_000;
+
 /** The Compline fields a CSV column can map to, with the words export headers commonly use. */
 export const importFields = {
   address: { label: 'Address', required: true, synonyms: ['address', 'street address', 'property address', 'addr', 'location address'] },

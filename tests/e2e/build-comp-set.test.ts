@@ -11,9 +11,12 @@
  *    "In grid: <address>" in each row, and the grid count (data-testid="grid-count");
  *  - the selected sale's section "Photos of <address>" with PhotoStrip and PhotoDropZone
  *    (features/photos): file input "Add photos of this sale", list "Photos of this sale";
- *  - the button "Import from CSV", which opens ImportSalesPanel (features/sales-import): file input "CSV file of sales".
+ *  - the button "Import from CSV", which opens ImportSalesPanel (features/sales-import): file input "CSV file of sales";
+ *  - the link "Export sales (CSV)", which downloads GET /api/assignments/:id/sales.csv.
  */
-import { and, eq } from 'drizzle-orm';
+import { readFile } from 'node:fs/promises';
+import { and, eq, isNull } from 'drizzle-orm';
+import Papa from 'papaparse';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
@@ -179,6 +182,8 @@ describe('building the comp set in a real browser', () => {
     // the other five sales are committed together.
     const csv = exportWithOneBadRow();
     await page.getByRole('button', { name: 'Import from CSV' }).click();
+    // The panel states the server's cap on rows per file.
+    await expect(page.getByRole('region', { name: 'Import sales from a CSV file' }).innerText()).resolves.toMatch(/at most 100,000 rows/);
     await page.getByLabel('CSV file of sales').setInputFiles({ name: 'ropewalk-sales.csv', mimeType: 'text/csv', buffer: csv.file });
     const problems = page.getByRole('list', { name: /Rows with problems/ });
     const problem = problems.getByRole('listitem').filter({ hasText: `Row ${csv.badRow}` });
@@ -206,6 +211,16 @@ describe('building the comp set in a real browser', () => {
     await expect.poll(() => page.getByTestId('grid-count').innerText()).toMatch(/^3\s*sales in the grid/);
     const inGrid = await db.select({ address: sales.address }).from(sales).where(and(eq(sales.assignmentId, copy.id), eq(sales.inGrid, true)));
     expect(inGrid.map((s) => s.address).sort()).toEqual([...gridAddresses].sort());
+
+    // The comp set leaves as a CSV file: the sale from the map and the imported ones, not the bad row.
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Export sales (CSV)' }).click()]);
+    expect(download.suggestedFilename()).toBe(`compline-sales-${copy.id}.csv`);
+    const exported = Papa.parse<Record<string, string>>((await readFile(await download.path())).toString('utf8').replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true });
+    const exportedAddresses = exported.data.map((r) => r.Address);
+    for (const address of [MAP_SALE.address, ...csv.goodAddresses]) expect(exportedAddresses, address).toContain(address);
+    expect(exportedAddresses).not.toContain('35 Ropewalk Lane');
+    const liveSales = await db.select({ id: sales.id }).from(sales).where(and(eq(sales.assignmentId, copy.id), isNull(sales.deletedAt)));
+    expect(exported.data).toHaveLength(liveSales.length);
 
     await map.waitFor();
     await saveScreenshot(page, 'build-comp-set');

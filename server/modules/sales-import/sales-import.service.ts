@@ -3,7 +3,7 @@ import { db } from '../../../db/client';
 import { importMappings, sales, salesImports } from '../../../db/schema/assignments';
 import type { SessionUser } from '../../contracts/auth';
 import type { SaleFields } from '../../contracts/sales';
-import { importFieldNames, importFields, type ColumnMapping, type ImportPreview, type ImportProblem } from '../../contracts/sales-import';
+import { importFieldNames, importFields, MAX_IMPORT_ROWS, type ColumnMapping, type ImportPreview, type ImportProblem } from '../../contracts/sales-import';
 import { badRequest, unprocessable } from '../../errors';
 import { audit } from '../audit/audit.service';
 import { assertEditable, loadAssignmentFor } from '../assignments/assignment-access';
@@ -15,9 +15,6 @@ import { scanCsv } from './csv-scan';
 import { duplicateKey, validateRow } from './row-validation';
 
 const PROBLEMS_LISTED = 500;
-/** Rows one import may hold: far beyond any comparable search, and a bound on the memory and the
- * single transaction of an import (a 60 MB file could otherwise carry most of a million rows). */
-export const MAX_IMPORT_ROWS = 100_000;
 const PREVIEW_ROWS = 8;
 
 interface Checked {

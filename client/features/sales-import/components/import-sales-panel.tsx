@@ -1,4 +1,5 @@
 import { useEffect, useRef } from 'react';
+import { MAX_IMPORT_ROWS } from '@contracts/sales-import';
 import { FileDropZone } from '../../../components/ui/file-drop-zone';
 import { Notice } from '../../../components/ui/notice';
 import { ProgressBar } from '../../../components/ui/progress-bar';
@@ -33,7 +34,8 @@ export function ImportSalesPanel({ assignmentId, onImported }: { assignmentId: n
         </h3>
         <p className="mt-1 max-w-3xl text-[0.9375rem] text-ink-soft">
           Export closed sales from your records system as CSV. Compline checks every row before anything is written, and the import is all
-          or nothing. Dates are read as year-month-day.
+          or nothing. Dates are read as year-month-day. A file may hold at most {MAX_IMPORT_ROWS.toLocaleString()} rows;
+          split a longer export into several files.
         </p>
       </header>
 

@@ -21,6 +21,9 @@ export const saleQueries = {
     }),
 };
 
+/** The comp set as a CSV file (the server neutralises formula-like text), for a download link. */
+export const salesCsvUrl = (assignmentId: number) => `/api/assignments/${assignmentId}/sales.csv`;
+
 export type SaleCreateInput = z.input<typeof saleCreate>;
 export type SaleUpdateInput = z.input<typeof saleUpdate>;
 const saleAnswer = z.object({ sale: saleSchema });

@@ -1,6 +1,6 @@
 import { useCallback, useMemo, useState } from 'react';
 import type { StepProps } from './step-registry';
-import { Button } from '../../../components/ui/button';
+import { Button, buttonClasses } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { ErrorPanel, LoadingPanel } from '../../../components/ui/query-states';
 import { useSessionUser } from '../../../features/auth/hooks/use-session-user';
@@ -9,6 +9,7 @@ import { MapLegend } from '../../../features/comp-map/components/map-legend';
 import { PhotoDropZone } from '../../../features/photos/components/photo-drop-zone';
 import { PhotoStrip } from '../../../features/photos/components/photo-strip';
 import { ImportSalesPanel } from '../../../features/sales-import/components/import-sales-panel';
+import { salesCsvUrl } from '../../../features/sales/api/sale-queries';
 import { GridCount } from '../../../features/sales/components/grid-count';
 import { SaleDialog, type SaleDialogMode } from '../../../features/sales/components/sale-dialog';
 import { SalesFilters } from '../../../features/sales/components/sales-filters';
@@ -64,16 +65,23 @@ export function ComparablesStep({ detail }: StepProps) {
     <div className="flex flex-col gap-5">
       <div className="flex flex-wrap items-center justify-between gap-x-6 gap-y-3">
         <GridCount count={gridCount} />
-        {editable && (
-          <div className="flex flex-wrap gap-2">
-            <Button onClick={() => setImporting((open) => !open)} aria-expanded={importing}>
-              {importing ? 'Close the CSV import' : 'Import from CSV'}
-            </Button>
-            <Button variant="primary" onClick={() => setDialog({ kind: 'add', at: null })}>
-              Add a sale
-            </Button>
-          </div>
-        )}
+        <div className="flex flex-wrap gap-2">
+          {rows.length > 0 && (
+            <a href={salesCsvUrl(assignment.id)} download className={buttonClasses('secondary')}>
+              Export sales (CSV)
+            </a>
+          )}
+          {editable && (
+            <>
+              <Button onClick={() => setImporting((open) => !open)} aria-expanded={importing}>
+                {importing ? 'Close the CSV import' : 'Import from CSV'}
+              </Button>
+              <Button variant="primary" onClick={() => setDialog({ kind: 'add', at: null })}>
+                Add a sale
+              </Button>
+            </>
+          )}
+        </div>
       </div>
 
       {!editable && (
