@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { numberText, optionalText } from '../../../lib/form-text';
 import { saleFields, saleTypes, type Sale } from '@contracts/sales';
 import type { SaleCreateInput } from '../api/sale-queries';
 
@@ -6,27 +7,6 @@ import type { SaleCreateInput } from '../api/sale-queries';
  * The sale form holds text, as inputs do; this schema turns it into the contract's values and
  * checks them with the contract's own rules and messages (`saleFields` in @contracts/sales).
  */
-const cleanNumber = (text: string) => Number(text.replace(/[\s,]/g, ''));
-
-/** Text → number (blank → null), then the contract's rule for that field. */
-function numberText<T extends z.ZodType<unknown, number | null>>(rule: T) {
-  return z
-    .string()
-    .trim()
-    .refine((text) => text === '' || Number.isFinite(cleanNumber(text)), 'Enter a number.')
-    .transform((text) => (text === '' ? null : cleanNumber(text)))
-    .pipe(rule);
-}
-
-/** Text → text (blank → null), then the contract's rule. */
-function optionalText<T extends z.ZodType<unknown, string | null>>(rule: T) {
-  return z
-    .string()
-    .trim()
-    .transform((text) => (text === '' ? null : text))
-    .pipe(rule);
-}
-
 const f = saleFields.shape;
 export const saleFormSchema = z.object({
   address: f.address,

@@ -6,7 +6,7 @@ import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
 import { useSubjectSave } from '../hooks/use-subject-save';
 import { subjectFieldLabels, subjectFormSchema, subjectToForm, type SubjectFormOutput, type SubjectFormValues } from '../lib/subject-form';
-import { StaleSubjectNotice } from './stale-subject-notice';
+import { StaleEditNotice } from '../../../components/forms/stale-edit-notice';
 import { SubjectHouseFields } from './subject-house-fields';
 import { parseLocation, SubjectLocationFields, useLocationFill } from './subject-location';
 
@@ -58,7 +58,7 @@ export function SubjectForm({ assignmentId, subject, areaUnit, editable, renderM
     <form onSubmit={submit} noValidate aria-label="Subject" className="flex flex-col gap-5">
       {conflict && (
         <div ref={conflictRef} tabIndex={-1} className="scroll-mt-4 outline-none">
-          <StaleSubjectNotice rows={conflict.rows} otherFields={conflict.otherFields} labels={labels} onKeepMine={() => resolve(true)} onTakeTheirs={() => resolve(false)} />
+          <StaleEditNotice title="Someone else saved the subject while you were editing" rows={conflict.rows} otherFields={conflict.otherFields} labels={labels} onKeepMine={() => resolve(true)} onTakeTheirs={() => resolve(false)} />
         </div>
       )}
       {failure && <Notice tone="error">{failure}</Notice>}

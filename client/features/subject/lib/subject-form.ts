@@ -1,27 +1,9 @@
 import { z } from 'zod';
+import { numberText, optionalText } from '../../../lib/form-text';
 import { subjectInput, type Subject } from '@contracts/assignments';
 
 /** The subject form holds text; this schema turns it into the contract's values and checks them
  * with the contract's own rules and messages (`subjectInput` in @contracts/assignments). */
-const cleanNumber = (text: string) => Number(text.replace(/[\s,]/g, ''));
-
-function numberText<T extends z.ZodType<unknown, number | null>>(rule: T) {
-  return z
-    .string()
-    .trim()
-    .refine((text) => text === '' || Number.isFinite(cleanNumber(text)), 'Enter a number.')
-    .transform((text) => (text === '' ? null : cleanNumber(text)))
-    .pipe(rule);
-}
-
-function optionalText<T extends z.ZodType<unknown, string | null>>(rule: T) {
-  return z
-    .string()
-    .trim()
-    .transform((text) => (text === '' ? null : text))
-    .pipe(rule);
-}
-
 const s = subjectInput.shape;
 export const subjectFormSchema = z
   .object({

@@ -1,22 +1,23 @@
-import { Button } from '../../../components/ui/button';
-import { Notice } from '../../../components/ui/notice';
-import type { EditConflictRow } from '../../../lib/edit-conflict';
-import type { SubjectField } from '../lib/subject-form';
+import { Button } from '../ui/button';
+import { Notice } from '../ui/notice';
+import type { EditConflictRow } from '../../lib/edit-conflict';
 
 const shown = (value: string) => (value.trim() === '' ? '(blank)' : value);
 
-/** After a 409: the person's edits beside what is saved now, and the two ways on. Nothing typed is lost. */
-export function StaleSubjectNotice({ rows, otherFields, labels, onKeepMine, onTakeTheirs }: {
-  rows: EditConflictRow<SubjectField>[];
-  otherFields: SubjectField[];
-  labels: Record<SubjectField, string>;
+/** After a 409 on a form: what the person typed beside what is saved now, the fields the other save
+ * also changed, and the two ways on. Nothing typed is lost. */
+export function StaleEditNotice<F extends string>({ title, rows, otherFields, labels, onKeepMine, onTakeTheirs }: {
+  title: string;
+  rows: EditConflictRow<F>[];
+  otherFields: F[];
+  labels: Record<F, string>;
   onKeepMine: () => void;
   onTakeTheirs: () => void;
 }) {
   return (
     <Notice
       tone="warning"
-      title="Someone else saved the subject while you were editing"
+      title={title}
       actions={
         <>
           <Button size="sm" onClick={onKeepMine}>
@@ -28,7 +29,7 @@ export function StaleSubjectNotice({ rows, otherFields, labels, onKeepMine, onTa
         </>
       }
     >
-      <p>Your changes were not saved yet. What you typed, next to what is saved now:</p>
+      <p>Your edit was not saved. What you typed, next to what is saved now:</p>
       {rows.length > 0 && (
         <table className="mt-2 w-full max-w-2xl text-left text-sm">
           <thead>
