@@ -286,6 +286,8 @@ describe('order to report, in a real browser', () => {
     const later = reader.getByRole('status').filter({ hasText: 'A later version of this report exists' });
     await later.getByRole('link', { name: 'Read the latest version' }).click();
     await reader.waitForURL(`${app.baseUrl}/reports/${second.reportVersionId}`);
+    // The address changes before version 2 is drawn: count the notice only once it is.
+    await reader.getByText(/Appraisal report · version 2 · signed/).waitFor();
     await expect(reader.getByText('A later version of this report exists').count()).resolves.toBe(0);
     await reader.close();
   }, 150_000);
