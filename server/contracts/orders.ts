@@ -72,6 +72,14 @@ export const paymentSchema = z.object({
   createdAt: z.coerce.date(),
 });
 
+/** A signed report version of the assignment an order became, as the order view names it. */
+export const orderReportSchema = z.object({
+  id: z.number().int(),
+  versionNumber: z.number().int(),
+  signedAt: z.coerce.date(),
+});
+export type OrderReport = z.infer<typeof orderReportSchema>;
+
 export const orderSchema = z.object({
   id: z.number().int(),
   clientOrganisationId: z.number().int(),
@@ -91,6 +99,9 @@ export const orderSchema = z.object({
   declineReason: z.string().nullable(),
   /** Set for the firm's staff once accepted; always null for clients (they never open assignments). */
   assignmentId: z.number().int().nullable(),
+  /** The signed report versions of that assignment the viewer may read, newest first (a client
+   * reads them only while the assignment is still for their organisation); empty until signed. */
+  reports: z.array(orderReportSchema),
   version: z.number().int(),
   createdAt: z.coerce.date(),
   updatedAt: z.coerce.date(),

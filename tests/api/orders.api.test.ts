@@ -3,11 +3,15 @@ import { count, eq } from 'drizzle-orm';
 import { db } from '../../db/client';
 import { assignments } from '../../db/schema/assignments';
 import { fees, orders } from '../../db/schema/delivery';
+import { orderDetailResponse, orderListResponse } from '../../server/contracts/orders';
 import { organisations } from '../../db/schema/organisations';
 import { DEMO_FIRM } from '../../db/seed/demo-accounts';
 import { seedDemoFees } from '../../db/seed/seed-fees';
 import type { FakePaymentsApi } from '../../server/integrations/payments/fake-payments-api';
-import { createUser } from '../factories/accounts';
+import { createOrganisation, createUser } from '../factories/accounts';
+import { createAssignment } from '../factories/assignments';
+import { createSignedReport } from '../factories/signed-report';
+import { takeAction } from '../factories/workflow';
 import {
   assignmentWithSubject, createFee, createOrderingParties, createOrderRow, dayFromToday, orderFormInput, orderRow, paymentRows, startPayments,
   type OrderingParties,
@@ -245,5 +249,72 @@ describe('the firm’s answer', () => {
     const seen = await client.get('/api/orders');
     const listed = seen.body.orders.find((o: { id: number }) => o.id === order.id);
     expect(listed.timeline).toContainEqual(expect.objectContaining({ kind: 'declined', note: 'The subject lies outside our licensed area.' }));
+  });
+});
+
+describe('the report of an order', () => {
+  /** An accepted order of the signed report's lender, pointing at the signed assignment. */
+  async function orderFor(signed: Awaited<ReturnType<typeof createSignedReport>>) {
+    const fee = await createFee(signed.firm);
+    const order = await createOrderRow({ firm: signed.firm, lender: signed.client.organisation, client: signed.client, fee }, 'accepted');
+    const [assignment] = await db.select().from(assignments).where(eq(assignments.id, signed.assignmentId));
+    await db.update(orders).set({ assignmentId: signed.assignmentId, subjectAddress: assignment.subjectAddress }).where(eq(orders.id, order.id));
+    return { ...order, subjectAddress: assignment.subjectAddress };
+  }
+  const reportsIn = (body: unknown) => orderDetailResponse.parse(body).order.reports.map((r) => [r.id, r.versionNumber]);
+  const assignmentVersion = async (id: number) => (await db.select({ v: assignments.version }).from(assignments).where(eq(assignments.id, id)))[0].v;
+
+  it('names the signed versions of its assignment by id, newest first, to the lender and to the firm', async () => {
+    const signed = await createSignedReport(api);
+    const order = await orderFor(signed);
+    const client = await signedInAgent(api, signed.client);
+
+    const first = await client.get(`/api/orders/${order.id}`);
+    expect(first.status).toBe(200);
+    expect(reportsIn(first.body)).toEqual([[signed.reportVersionId, 1]]);
+    expect(first.body.order.assignmentId).toBeNull();
+    // The id opens that very report for the lender.
+    const report = await client.get(`/api/reports/${first.body.order.reports[0].id}`);
+    expect(report.status).toBe(200);
+    expect(report.body.snapshot.assignment.id).toBe(signed.assignmentId);
+    const listed = orderListResponse.parse((await client.get('/api/orders')).body).orders.find((o) => o.id === order.id);
+    expect(listed?.reports.map((r) => r.id)).toEqual([signed.reportVersionId]);
+
+    // A new draft, approved and signed again, is version 2: it comes first.
+    const appraiser = signed.appraiserAgent;
+    const draft = await appraiser.post(`/api/assignments/${signed.assignmentId}/new-draft`).send({ version: await assignmentVersion(signed.assignmentId), reason: 'Lot size corrected.' });
+    expect(draft.status).toBe(200);
+    await db.update(assignments).set({ status: 'approved' }).where(eq(assignments.id, signed.assignmentId));
+    const second = await takeAction(appraiser, signed.assignmentId, 'sign', await assignmentVersion(signed.assignmentId));
+    expect(second.status).toBe(201);
+    const both = [[second.body.reportVersionId, 2], [signed.reportVersionId, 1]];
+    expect(reportsIn((await client.get(`/api/orders/${order.id}`)).body)).toEqual(both);
+    expect(reportsIn((await appraiser.get(`/api/orders/${order.id}`)).body)).toEqual(both);
+  });
+
+  it('names no report for another order at the same address, nor before signing', async () => {
+    const signed = await createSignedReport(api);
+    const order = await orderFor(signed);
+    // The lender orders the same house again; that work is accepted but not signed.
+    const fee = await createFee(signed.firm);
+    const again = await createOrderRow({ firm: signed.firm, lender: signed.client.organisation, client: signed.client, fee }, 'accepted');
+    const unsigned = await createAssignment({ appraiser: signed.appraiser, status: 'in_progress' });
+    await db.update(assignments).set({ clientOrganisationId: signed.client.organisation.id, subjectAddress: order.subjectAddress }).where(eq(assignments.id, unsigned.id));
+    await db.update(orders).set({ assignmentId: unsigned.id, subjectAddress: order.subjectAddress }).where(eq(orders.id, again.id));
+
+    const client = await signedInAgent(api, signed.client);
+    expect(reportsIn((await client.get(`/api/orders/${again.id}`)).body)).toEqual([]);
+    expect(reportsIn((await client.get(`/api/orders/${order.id}`)).body)).toEqual([[signed.reportVersionId, 1]]);
+  });
+
+  it('names no report to a lender the assignment is no longer for, while the firm still sees it', async () => {
+    const signed = await createSignedReport(api);
+    const order = await orderFor(signed);
+    const otherLender = await createOrganisation('lender');
+    await db.update(assignments).set({ clientOrganisationId: otherLender.id }).where(eq(assignments.id, signed.assignmentId));
+    const client = await signedInAgent(api, signed.client);
+    expect(reportsIn((await client.get(`/api/orders/${order.id}`)).body)).toEqual([]);
+    expect((await client.get(`/api/reports/${signed.reportVersionId}`)).status).toBe(404);
+    expect(reportsIn((await signed.appraiserAgent.get(`/api/orders/${order.id}`)).body)).toEqual([[signed.reportVersionId, 1]]);
   });
 });

@@ -4,13 +4,11 @@ import { PageHeader } from '../../components/ui/page-header';
 import { RoleGate } from '../../features/auth/components/role-gate';
 import { useSessionUser } from '../../features/auth/hooks/use-session-user';
 import { OrderList } from '../../features/orders/components/order-list';
-import { useReportForOrder } from './report-for-order';
 
 /** The lender's home: their organisation's orders with each one's timeline; a delivered order
  * links to its report. */
 export function MyOrdersPage() {
   const user = useSessionUser();
-  const reportFor = useReportForOrder();
   return (
     <RoleGate roles={['client']}>
       <title>My orders · Compline</title>
@@ -25,7 +23,7 @@ export function MyOrdersPage() {
             </Link>
           }
         />
-        <OrderList reportFor={reportFor} />
+        <OrderList />
       </div>
     </RoleGate>
   );

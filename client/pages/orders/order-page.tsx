@@ -10,7 +10,6 @@ import { OrderDecision } from '../../features/orders/components/order-decision';
 import { PaymentStep } from '../../features/orders/components/payment-step';
 import { NotFoundPage } from '../errors/not-found-page';
 import { OrderSteps } from './order-steps';
-import { useReportForOrder } from './report-for-order';
 
 function parseOrderId(raw: string | undefined): number | null {
   if (!raw || !/^[1-9]\d{0,9}$/.test(raw)) return null;
@@ -33,7 +32,6 @@ export function OrderPage() {
 function OrderDetail({ id }: { id: number }) {
   const user = useSessionUser();
   const detail = useQuery(orderQueries.detail(id));
-  const reportFor = useReportForOrder();
   const back = (
     <Link to={user.role === 'client' ? '/' : '/orders'} className="text-[0.875rem] text-ink-soft underline-offset-4 hover:text-ink hover:underline">
       ← {user.role === 'client' ? 'My orders' : 'Orders'}
@@ -66,7 +64,7 @@ function OrderDetail({ id }: { id: number }) {
           <PaymentStep order={order} />
         </section>
       )}
-      <OrderCard order={order} viewer={client ? 'client' : 'firm'} reportLink={client ? reportFor(order) : null} linkTitle={false}>
+      <OrderCard order={order} viewer={client ? 'client' : 'firm'} linkTitle={false}>
         {!client && <OrderDecision order={order} role={user.role} />}
       </OrderCard>
     </div>

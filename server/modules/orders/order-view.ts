@@ -1,7 +1,7 @@
 import type { payments } from '../../../db/schema/delivery';
 import type { SessionUser } from '../../contracts/auth';
 import type { AssignmentStatus } from '../../contracts/assignments';
-import type { Order, TimelineEntry } from '../../contracts/orders';
+import type { Order, OrderReport, TimelineEntry } from '../../contracts/orders';
 import type { OrderRow } from './orders.repo';
 
 /** How an order is shown: its fields and a timeline built from what the database already holds
@@ -38,11 +38,13 @@ export function orderTimeline(order: OrderRow, attempts: readonly PaymentRow[], 
   return entries;
 }
 
-export function orderView(user: SessionUser, order: OrderRow, attempts: readonly PaymentRow[], progress: AssignmentProgress | undefined): Order {
+/** `reports`: the signed versions of the order's assignment the user may read, newest first. */
+export function orderView(user: SessionUser, order: OrderRow, attempts: readonly PaymentRow[], progress: AssignmentProgress | undefined, reports: readonly OrderReport[]): Order {
   const { orderedBy: _by, orderedByEmail: _email, ...fields } = order;
   return {
     ...fields,
     assignmentId: user.role === 'client' ? null : order.assignmentId,
+    reports: reports.map(({ id, versionNumber, signedAt }) => ({ id, versionNumber, signedAt })),
     timeline: orderTimeline(order, attempts, progress),
   };
 }

@@ -2,7 +2,7 @@ import { and, asc, desc, eq, inArray, max, or, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import type { DbOrTx } from '../../../db/client';
 import { assignments } from '../../../db/schema/assignments';
-import { fees, orders, payments } from '../../../db/schema/delivery';
+import { fees, orders, payments, reportVersions } from '../../../db/schema/delivery';
 import { organisations, users } from '../../../db/schema/organisations';
 import { statusChanges } from '../../../db/schema/review';
 
@@ -113,6 +113,19 @@ export async function assignmentProgress(tx: DbOrTx, assignmentIds: number[]) {
     .leftJoin(statusChanges, eq(statusChanges.assignmentId, assignments.id))
     .where(inArray(assignments.id, assignmentIds))
     .groupBy(assignments.id, assignments.status);
+}
+
+/** The signed report versions of these assignments that an organisation may read — as the lender
+ * the assignment is for, or as the firm that holds it — newest first. */
+export async function signedReportsOf(tx: DbOrTx, assignmentIds: number[], reader: { side: 'client' | 'firm'; organisationId: number }) {
+  if (assignmentIds.length === 0) return [];
+  const readerColumn = reader.side === 'client' ? assignments.clientOrganisationId : assignments.firmOrganisationId;
+  return tx
+    .select({ id: reportVersions.id, assignmentId: reportVersions.assignmentId, versionNumber: reportVersions.versionNumber, signedAt: reportVersions.signedAt })
+    .from(reportVersions)
+    .innerJoin(assignments, eq(assignments.id, reportVersions.assignmentId))
+    .where(and(inArray(reportVersions.assignmentId, assignmentIds), eq(readerColumn, reader.organisationId)))
+    .orderBy(desc(reportVersions.versionNumber));
 }
 
 /** The firm's active admins and appraisers: who hears about a new order. */

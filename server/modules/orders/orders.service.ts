@@ -8,7 +8,7 @@ import { enqueueMail } from '../../integrations/mail/outbox';
 import { createPaymentIntent } from '../../integrations/payments/payment-intents';
 import { audit } from '../audit/audit.service';
 import { formatMoney, orderView, paymentView, type AssignmentProgress } from './order-view';
-import { assignmentProgress, findFee, findOrder, listFees, listOrdersOf, orderDesk, paymentsOf, type OrderRow } from './orders.repo';
+import { assignmentProgress, findFee, findOrder, listFees, listOrdersOf, orderDesk, paymentsOf, signedReportsOf, type OrderRow } from './orders.repo';
 
 /** A lender's staff see their organisation's orders; the firm's admins and appraisers see the orders
  * placed with the firm. Anyone else gets "not found", so that other organisations' ids reveal nothing. */
@@ -82,13 +82,16 @@ export async function placeOrder(user: SessionUser, input: z.infer<typeof orderI
 
 async function withTimelines(tx: DbOrTx, user: SessionUser, rows: OrderRow[]) {
   const attempts = await paymentsOf(tx, rows.map((o) => o.id));
-  const progress = (await assignmentProgress(tx, rows.flatMap((o) => (o.assignmentId ? [o.assignmentId] : [])))) as AssignmentProgress[];
+  const assignmentIds = rows.flatMap((o) => (o.assignmentId ? [o.assignmentId] : []));
+  const progress = (await assignmentProgress(tx, assignmentIds)) as AssignmentProgress[];
+  const reports = await signedReportsOf(tx, assignmentIds, { side: user.role === 'client' ? 'client' : 'firm', organisationId: user.organisationId });
   return rows.map((order) =>
     orderView(
       user,
       order,
       attempts.filter((p) => p.orderId === order.id),
       progress.find((a) => a.id === order.assignmentId),
+      reports.filter((r) => r.assignmentId === order.assignmentId),
     ),
   );
 }

@@ -5,7 +5,7 @@ import { Badge } from '../../../components/ui/badge';
 import { formatIsoDate } from '../../../lib/format-date';
 import { formatMoney } from '../../../lib/format-money';
 import { isReportDelivered, orderStatusTone, REPORT_DELIVERED } from '../lib/order-words';
-import { OrderTimeline, type ReportLink } from './order-timeline';
+import { OrderTimeline } from './order-timeline';
 
 function Fact({ term, children }: { term: string; children: ReactNode }) {
   return (
@@ -20,13 +20,11 @@ function Fact({ term, children }: { term: string; children: ReactNode }) {
 export function OrderCard({
   order,
   viewer,
-  reportLink,
   linkTitle = true,
   children,
 }: {
   order: Order;
   viewer: 'client' | 'firm';
-  reportLink?: ReportLink | null;
   /** The address links to the order's own page (off on that page itself). */
   linkTitle?: boolean;
   /** Actions under the timeline (pay, accept, decline). */
@@ -65,7 +63,7 @@ export function OrderCard({
         </div>
       </dl>
       <div className="border-t border-dashed border-rule px-5 py-4">
-        <OrderTimeline order={order} viewer={viewer} reportLink={reportLink} payHref={linkTitle ? `/orders/${order.id}` : undefined} />
+        <OrderTimeline order={order} viewer={viewer} payHref={linkTitle ? `/orders/${order.id}` : undefined} />
       </div>
       {children && <div className="border-t border-rule bg-paper-sunk/40 px-5 py-4">{children}</div>}
     </article>

@@ -1,15 +1,13 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
-import type { Order } from '@contracts/orders';
 import { buttonClasses } from '../../../components/ui/button';
 import { EmptyPanel, ErrorPanel, LoadingPanel } from '../../../components/ui/query-states';
 import { orderQueries } from '../api/order-queries';
 import { OrderCard } from './order-card';
-import type { ReportLink } from './order-timeline';
 
-/** The lender's orders and where each stands, newest first as the server sends them. The page
- * passes `reportFor`, which finds the delivered report of an order (the reports feature owns it). */
-export function OrderList({ reportFor }: { reportFor?: (order: Order) => ReportLink | null }) {
+/** The lender's orders and where each stands, newest first as the server sends them; a delivered
+ * order links to its report by the id the server sends with it. */
+export function OrderList() {
   const orders = useQuery(orderQueries.list());
 
   if (orders.isPending) return <LoadingPanel label="Loading your orders…" />;
@@ -30,7 +28,7 @@ export function OrderList({ reportFor }: { reportFor?: (order: Order) => ReportL
     <ul aria-label="Your orders" className="flex flex-col gap-4">
       {orders.data.map((order) => (
         <li key={order.id}>
-          <OrderCard order={order} viewer="client" reportLink={reportFor?.(order) ?? null} />
+          <OrderCard order={order} viewer="client" />
         </li>
       ))}
     </ul>

@@ -2,12 +2,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import type { Order } from '@contracts/orders';
 import { formatDateTime } from '../../../lib/format-date';
-import { entryMark, nextStepWords, REPORT_DELIVERED, type EntryMark } from '../lib/order-words';
-
-export interface ReportLink {
-  href: string;
-  label: string;
-}
+import { entryMark, nextStepWords, REPORT_DELIVERED, reportLinkOf, type EntryMark } from '../lib/order-words';
 
 const markStyle: Record<EntryMark | 'next', string> = {
   done: 'border-ink bg-ink text-paper',
@@ -44,8 +39,10 @@ function Step({ mark, title, when, children, last }: { mark: EntryMark | 'next';
  * Where an order stands: every step the server reports (placed, each payment attempt, the firm's
  * decision, then the work's progress in coarse words) and, greyed, the step that comes next.
  */
-export function OrderTimeline({ order, viewer, reportLink, payHref }: { order: Order; viewer: 'client' | 'firm'; reportLink?: ReportLink | null; payHref?: string }) {
+export function OrderTimeline({ order, viewer, payHref }: { order: Order; viewer: 'client' | 'firm'; payHref?: string }) {
   const next = nextStepWords(order, viewer);
+  // The lender reads the report here; the firm's staff open the assignment instead.
+  const reportLink = viewer === 'client' ? reportLinkOf(order) : null;
   const steps = order.timeline;
   return (
     <ol aria-label={`Timeline of order ${order.id}`} className="flex flex-col md:flex-row">

@@ -16,6 +16,13 @@ export function isReportDelivered(order: Order): boolean {
   return order.timeline.some((entry) => entry.kind === 'assignment' && entry.label === REPORT_DELIVERED);
 }
 
+/** The link from a delivered order to its newest signed report version, by the id the server
+ * sends with the order; null until a version exists. */
+export function reportLinkOf(order: Order): { href: string; label: string } | null {
+  const newest = order.reports[0];
+  return newest ? { href: `/reports/${newest.id}`, label: `Read the report (version ${newest.versionNumber})` } : null;
+}
+
 /** What happens next, in words, for the step the timeline has not reached yet (null: nothing). */
 export function nextStepWords(order: Order, viewer: 'client' | 'firm'): string | null {
   switch (order.status) {
