@@ -74,18 +74,25 @@ export async function insertPortElleryAssignment(tx: DbOrTx, input: PortElleryAs
   return assignment.id;
 }
 
+/** The demo firm, lender and appraiser, and the firm's demo assignment at this address if the seed
+ * already wrote it (a later run leaves it, and users' changes, alone). */
+export async function demoParties(tx: DbOrTx, subjectAddress: string) {
+  const [firm] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_FIRM));
+  const [lender] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_LENDER));
+  const appraiserEmail = demoUsers.find((u) => u.role === 'appraiser')!.email;
+  const [appraiser] = await tx.select().from(users).where(eq(users.email, appraiserEmail));
+  const [existing] = await tx
+    .select({ id: assignments.id })
+    .from(assignments)
+    .where(and(eq(assignments.firmOrganisationId, firm.id), eq(assignments.subjectAddress, subjectAddress)));
+  return { firm, lender, appraiser, existing };
+}
+
 /** The demo assignment for 14 Lantern Lane with the generated Port Ellery market sales. Created once;
  * a later run finds it by firm and subject address and leaves it (and users' changes) alone. */
 export async function seedDemoAssignment(db: Db): Promise<void> {
   await db.transaction(async (tx) => {
-    const [firm] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_FIRM));
-    const [lender] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_LENDER));
-    const appraiserEmail = demoUsers.find((u) => u.role === 'appraiser')!.email;
-    const [appraiser] = await tx.select().from(users).where(eq(users.email, appraiserEmail));
-    const [existing] = await tx
-      .select({ id: assignments.id })
-      .from(assignments)
-      .where(and(eq(assignments.firmOrganisationId, firm.id), eq(assignments.subjectAddress, DEMO_SUBJECT_ADDRESS)));
+    const { firm, lender, appraiser, existing } = await demoParties(tx, DEMO_SUBJECT_ADDRESS);
     if (existing) return;
     await insertPortElleryAssignment(tx, {
       firmOrganisationId: firm.id,

@@ -2,11 +2,9 @@ import { and, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../client';
 import { assignments, sales } from '../schema/assignments';
 import { gridSettings } from '../schema/review';
-import { organisations, users } from '../schema/organisations';
 import { audit } from '../../server/modules/audit/audit.service';
 import { recordStatusChange, TRANSITIONS } from '../../server/modules/review/status-changes';
-import { DEMO_FIRM, DEMO_LENDER, demoUsers } from './demo-accounts';
-import { insertPortElleryAssignment } from './seed-assignment';
+import { demoParties, insertPortElleryAssignment } from './seed-assignment';
 
 /**
  * The demo's second file, 9 Cobble Lane in Quarry Hill: the demo appraiser has built it on the same
@@ -31,14 +29,7 @@ const RECONCILIATION_COMMENT =
 
 export async function seedDemoReviewAssignment(db: Db): Promise<void> {
   await db.transaction(async (tx) => {
-    const [firm] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_FIRM));
-    const [lender] = await tx.select().from(organisations).where(eq(organisations.name, DEMO_LENDER));
-    const appraiserEmail = demoUsers.find((u) => u.role === 'appraiser')!.email;
-    const [appraiser] = await tx.select().from(users).where(eq(users.email, appraiserEmail));
-    const [existing] = await tx
-      .select({ id: assignments.id })
-      .from(assignments)
-      .where(and(eq(assignments.firmOrganisationId, firm.id), eq(assignments.subjectAddress, DEMO_REVIEW_SUBJECT_ADDRESS)));
+    const { firm, lender, appraiser, existing } = await demoParties(tx, DEMO_REVIEW_SUBJECT_ADDRESS);
     if (existing) return;
     const actor = { id: appraiser.id, organisationId: firm.id };
 

@@ -1,4 +1,4 @@
-import { and, eq, inArray, ne, sql } from 'drizzle-orm';
+import { and, inArray, ne, sql } from 'drizzle-orm';
 import { db } from '../../../db/client';
 import { reviewQueries } from '../../../db/schema/review';
 import type { SessionUser } from '../../contracts/auth';

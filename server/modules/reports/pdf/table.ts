@@ -2,7 +2,7 @@
 // row when it needs one, struck-through rows for excluded sales, and the head repeated after a page
 // break.
 import { FONT, type FontName } from './fonts';
-import { ensureSpace, eyebrow, place, rule, textHeight } from './layout';
+import { ensureSpace, place, rule, textHeight } from './layout';
 import { FLAG_RING, INK, PAGE } from './theme';
 
 export interface Column {
