@@ -18,7 +18,7 @@ import { readFile } from 'node:fs/promises';
 import { and, eq, isNull } from 'drizzle-orm';
 import Papa from 'papaparse';
 import sharp from 'sharp';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { db } from '../../db/client';
 import { photos, sales } from '../../db/schema/assignments';
@@ -26,7 +26,7 @@ import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { generatePortEllery } from '../../db/seed/port-ellery';
 import { cleanSaleRow, csvFile } from '../factories/csv';
 import { createDemoAssignment } from '../factories/demo-assignment';
-import { launchBrowser, saveScreenshot, startApp, unexpectedFailures, watchPage, type RunningApp, type RunningBrowser } from './support/browser';
+import { appAndBrowser, saveScreenshot, unexpectedFailures, watchPage } from './support/browser';
 
 const appraiser = demoUsers.find((u) => u.role === 'appraiser')!;
 const SUBJECT_ADDRESS = '14 Lantern Lane (comp set journey)';
@@ -99,34 +99,23 @@ function photoJpeg(): Promise<Buffer> {
 }
 
 describe('building the comp set in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = appAndBrowser();
 
   it('adds a sale on the map with a photo, imports a CSV skipping its bad row, and marks three sales for the grid', async () => {
-    const copy = await createDemoAssignment(app.baseUrl, { subjectAddress: SUBJECT_ADDRESS, completeGrid: false, submit: false });
+    const copy = await createDemoAssignment(running.app.baseUrl, { subjectAddress: SUBJECT_ADDRESS, completeGrid: false, submit: false });
     // The factory marks three demo sales for the grid; this journey starts from none and marks its own.
     await db.update(sales).set({ inGrid: false }).where(eq(sales.assignmentId, copy.id));
 
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await page.getByLabel('E-mail address').fill(appraiser.email);
     await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('link', { name: SUBJECT_ADDRESS }).click();
     await page.getByRole('heading', { level: 1, name: SUBJECT_ADDRESS }).waitFor();
     await page.getByRole('navigation', { name: 'Assignment steps' }).getByRole('link', { name: /Comparables/ }).click();
-    await page.waitForURL(`${app.baseUrl}/assignments/${copy.id}/comparables`);
+    await page.waitForURL(`${running.app.baseUrl}/assignments/${copy.id}/comparables`);
 
     // The map is drawn: its canvas holds the basemap, rings and markers, not a blank rectangle.
     const map = comparables.map(page);

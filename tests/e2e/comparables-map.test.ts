@@ -1,11 +1,11 @@
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { DEMO_SUBJECT_ADDRESS } from '../../db/seed/seed-assignment';
 import { neighbourhoodAt, type NeighbourhoodBoundaries } from '../../client/features/subject/lib/neighbourhood-at';
-import { launchBrowser, saveScreenshot, SCREENSHOT_DIR, startApp, unexpectedFailures, watchPage, type PageWatch, type RunningApp, type RunningBrowser } from './support/browser';
+import { appAndBrowser, saveScreenshot, SCREENSHOT_DIR, unexpectedFailures, watchPage, type PageWatch } from './support/browser';
 import { colourSummary, elementPixels, hex, openLandNearSubject, shareOf } from './comparables-map-pixels';
 
 const appraiser = demoUsers.find((u) => u.role === 'appraiser')!;
@@ -34,24 +34,13 @@ function saleWrite(page: Page, method: 'POST' | 'PATCH' | 'DELETE') {
 }
 
 describe('the comp set on the map, in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser({ width: 1280, height: 900 });
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = appAndBrowser({ viewport: { width: 1280, height: 900 } });
 
   it('draws the town, adds a sale where the map is clicked, puts three sales in the grid, then undoes it all', async () => {
-    await browser.context.clearCookies();
-    const page = await browser.context.newPage();
+    await running.browser.context.clearCookies();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await openStep(page, app.baseUrl, 'Comparables');
+    await openStep(page, running.app.baseUrl, 'Comparables');
 
     const map = page.locator('[data-map-ready="true"]');
     await map.waitFor({ timeout: 30_000 });
@@ -152,10 +141,10 @@ describe('the comp set on the map, in a real browser', () => {
   });
 
   it('keeps what was typed when someone else saved the sale first, and saves it on the fresh version', async () => {
-    await browser.context.clearCookies();
-    const page = await browser.context.newPage();
+    await running.browser.context.clearCookies();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await openStep(page, app.baseUrl, 'Comparables');
+    await openStep(page, running.app.baseUrl, 'Comparables');
     const table = page.getByRole('table', { name: 'Comparable sales' });
     const editButton = table.getByRole('button', { name: /^Edit / }).first();
     const address = (await editButton.getAttribute('aria-label'))!.replace(/^Edit /, '');
@@ -208,10 +197,10 @@ describe('the comp set on the map, in a real browser', () => {
   });
 
   it('places the subject with a click on the map and fills its neighbourhood from the boundaries', async () => {
-    await browser.context.clearCookies();
-    const page = await browser.context.newPage();
+    await running.browser.context.clearCookies();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await openStep(page, app.baseUrl, 'Subject');
+    await openStep(page, running.app.baseUrl, 'Subject');
     const map = page.locator('[data-map-ready="true"]');
     await map.waitFor({ timeout: 30_000 });
     const lonField = page.getByLabel('Longitude');

@@ -1,5 +1,5 @@
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { db } from '../../db/client';
 import { sales } from '../../db/schema/assignments';
@@ -11,10 +11,10 @@ import { CAUTIONS } from '../../server/contracts/report-text';
 import { figureFormat } from '../../client/features/market-analysis/lib/figure-format';
 import { predictionHalfWidth } from '../../client/features/market-analysis/lib/prediction-band';
 import { apiSessionAs, createDemoAssignment } from '../factories/demo-assignment';
-import { launchBrowser, saveScreenshot, startApp, unexpectedFailures, watchPage, type RunningApp, type RunningBrowser } from './support/browser';
+import { appAndBrowser, saveScreenshot, unexpectedFailures, watchPage } from './support/browser';
 
 const appraiser = demoUsers.find((u) => u.role === 'appraiser')!;
-const LOCALE = 'en-GB'; // the browser's locale (support/browser.ts), so that figures compare as text
+const LOCALE = 'en-GB'; // the browser's locale (support/running.browser.ts), so that figures compare as text
 
 async function signInAsAppraiser(page: Page, baseUrl: string) {
   await page.goto(`${baseUrl}/sign-in`);
@@ -48,33 +48,18 @@ async function waitForDots(page: Page, count: number) {
 }
 
 describe('the market analysis step in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
-  beforeEach(async () => {
-    await browser.context.clearCookies();
-  });
+  const running = appAndBrowser({ freshCookies: true });
 
   it('shows the demo fit of Quarry Hill with its figures, flagged anomalies and cautions, then Orchard Rise, at 1280 and 768 px', async () => {
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await signInAsAppraiser(page, app.baseUrl);
+    await signInAsAppraiser(page, running.app.baseUrl);
     const { assignments } = await apiGet<{ assignments: Array<{ id: number; subjectAddress: string }> }>(page, '/api/assignments');
     const demo = assignments.find((a) => a.subjectAddress === DEMO_SUBJECT_ADDRESS);
     expect(demo, 'the demo assignment is seeded').toBeDefined();
     const id = demo!.id;
 
-    await page.goto(`${app.baseUrl}/assignments/${id}/market-analysis`);
+    await page.goto(`${running.app.baseUrl}/assignments/${id}/market-analysis`);
     const analysis = analysisWireResponse.parse(await apiGet<unknown>(page, `/api/assignments/${id}/analysis`));
     const format = figureFormat(analysis.currency, analysis.areaUnit, LOCALE);
     expect(analysis.subjectGroup).toBe('Quarry Hill');
@@ -172,7 +157,7 @@ describe('the market analysis step in a real browser', () => {
 
     // A click on a sale opens it on the comparables step.
     await page.locator(`[data-chart="price-area"] circle[data-sale-id="${mason.saleId}"]`).click({ force: true });
-    await page.waitForURL(`${app.baseUrl}/assignments/${id}/comparables?sale=${mason.saleId}`);
+    await page.waitForURL(`${running.app.baseUrl}/assignments/${id}/comparables?sale=${mason.saleId}`);
 
     expect(watch.errors).toEqual([]);
     expect(unexpectedFailures(watch, ['401 GET /api/auth/me'])).toEqual([]);
@@ -180,7 +165,7 @@ describe('the market analysis step in a real browser', () => {
   });
 
   it('switches time-adjusted prices on, tells the appraiser when someone else changed the assignment, and lists set-aside sales struck through', async () => {
-    const copy = await createDemoAssignment(app.baseUrl, { subjectAddress: `14 Lantern Lane, analysis copy ${Date.now()}`, completeGrid: false, submit: false });
+    const copy = await createDemoAssignment(running.app.baseUrl, { subjectAddress: `14 Lantern Lane, analysis copy ${Date.now()}`, completeGrid: false, submit: false });
     const distressed = copy.anomalies['distressed-sale'];
     const tearDown = copy.anomalies['tear-down'];
     await db.update(sales).set({ inGrid: true }).where(and(eq(sales.assignmentId, copy.id), eq(sales.id, distressed.saleId)));
@@ -189,11 +174,11 @@ describe('the market analysis step in a real browser', () => {
       .set({ excluded: true, exclusionReason: 'Bought for the land and demolished; the price says nothing about floor area.' })
       .where(and(eq(sales.assignmentId, copy.id), eq(sales.id, tearDown.saleId)));
 
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
     await page.setViewportSize({ width: 1280, height: 800 });
-    await signInAsAppraiser(page, app.baseUrl);
-    await page.goto(`${app.baseUrl}/assignments/${copy.id}/market-analysis`);
+    await signInAsAppraiser(page, running.app.baseUrl);
+    await page.goto(`${running.app.baseUrl}/assignments/${copy.id}/market-analysis`);
     await page.locator('[data-chart="price-area"] circle[data-sale-id]').first().waitFor();
 
     // The set-aside sale is listed apart, struck through, with its reason; the flagged sale in the grid says so.
@@ -220,7 +205,7 @@ describe('the market analysis step in a real browser', () => {
     await saveScreenshot(page, 'market-analysis-time-adjusted-1280');
 
     // Someone else switches it off meanwhile: the page's version is stale, the server says 409.
-    const other = await apiSessionAs(app.baseUrl, 'appraiser');
+    const other = await apiSessionAs(running.app.baseUrl, 'appraiser');
     const current = await other.request<{ assignment: { version: number } }>('GET', `/api/assignments/${copy.id}`);
     expect((await other.request('PATCH', `/api/assignments/${copy.id}`, { timeAdjustment: false, version: current.body.assignment.version })).status).toBe(200);
     const refused = page.waitForResponse((r) => r.request().method() === 'PATCH' && r.url().endsWith(`/api/assignments/${copy.id}`));

@@ -1,7 +1,7 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
-import { launchBrowser, saveScreenshot, startApp, unexpectedFailures, watchPage, type RunningApp, type RunningBrowser } from './support/browser';
+import { appAndBrowser, saveScreenshot, unexpectedFailures, watchPage } from './support/browser';
 
 const admin = demoUsers.find((u) => u.role === 'admin')!;
 const reviewer = demoUsers.find((u) => u.role === 'reviewer')!;
@@ -29,29 +29,14 @@ function nextUserPatch(page: Page) {
 }
 
 describe('the office manager’s work in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
-  beforeEach(async () => {
-    await browser.context.clearCookies();
-  });
+  const running = appAndBrowser({ freshCookies: true });
 
   it('invites an appraiser: the e-mail waits in the outbox, the invitation is audited, and its link opens an account', async () => {
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
     const email = `odile.marsh.${Date.now()}@lantern-valuation.example`;
 
-    await openTeamAsAdmin(page, app.baseUrl);
+    await openTeamAsAdmin(page, running.app.baseUrl);
     const inviteForm = page.getByRole('region', { name: 'Invite someone' });
     await inviteForm.getByLabel('Name').fill('Odile Marsh');
     await inviteForm.getByLabel('E-mail address').fill(email);
@@ -81,7 +66,7 @@ describe('the office manager’s work in a real browser', () => {
     expect(invitedText).toMatch(/invitation #\d+/);
 
     await page.getByRole('button', { name: 'Sign out' }).click();
-    await page.waitForURL(`${app.baseUrl}/sign-in`);
+    await page.waitForURL(`${running.app.baseUrl}/sign-in`);
     await page.goto(link!);
     await page.getByRole('heading', { level: 1, name: 'Join Compline' }).waitFor();
     const facts = await page.locator('dl').innerText();
@@ -94,7 +79,7 @@ describe('the office manager’s work in a real browser', () => {
 
     await page.getByLabel('The password again').fill('quarry-hill-2026');
     await page.getByRole('button', { name: 'Accept and sign in' }).click();
-    await page.waitForURL(`${app.baseUrl}/`);
+    await page.waitForURL(`${running.app.baseUrl}/`);
     await page.getByRole('heading', { level: 1, name: 'My assignments' }).waitFor();
     await expect(page.getByTestId('signed-in-user').innerText()).resolves.toContain('Odile Marsh');
 
@@ -104,12 +89,12 @@ describe('the office manager’s work in a real browser', () => {
   });
 
   it('refuses a change based on an old copy with the server’s message, and reloads on request', async () => {
-    const first = await browser.context.newPage();
-    await openTeamAsAdmin(first, app.baseUrl);
+    const first = await running.browser.context.newPage();
+    await openTeamAsAdmin(first, running.app.baseUrl);
     // A second tab of the same office manager, opened before the first tab's change.
-    const second = await browser.context.newPage();
+    const second = await running.browser.context.newPage();
     const watch = watchPage(second);
-    await openTeamAsAdmin(second, app.baseUrl, { alreadySignedIn: true });
+    await openTeamAsAdmin(second, running.app.baseUrl, { alreadySignedIn: true });
 
     const roleIn = (page: Page) => page.getByLabel(`Role of ${reviewer.name}`);
     const saved = nextUserPatch(first);

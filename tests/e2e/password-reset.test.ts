@@ -1,32 +1,21 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { createUser } from '../factories/accounts';
 import { linkIn, onlyMailTo } from '../setup/mailbox';
-import { launchBrowser, saveScreenshot, startApp, unexpectedFailures, watchPage, type RunningApp, type RunningBrowser } from './support/browser';
+import { appAndBrowser, saveScreenshot, unexpectedFailures, watchPage } from './support/browser';
 
 const SERVER_ACCEPTED = 'If that address has an account, a reset link is on its way.';
 const LINK_USED = 'This reset link is not valid any more. Ask for a new one.';
 
 describe('resetting a forgotten password in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
+  const running = appAndBrowser();
 
   it('sends a link, sets the new password through it, signs in with it, and refuses the link a second time', async () => {
     const user = await createUser({ role: 'appraiser', name: 'Perrin Voss' });
     const newPassword = 'saltmarsh-flats-tide';
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
 
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await page.getByRole('link', { name: 'Forgot your password?' }).click();
     await page.getByRole('heading', { level: 1, name: 'Reset your password' }).waitFor();
     await page.getByLabel('E-mail address').fill(user.email);
@@ -38,7 +27,7 @@ describe('resetting a forgotten password in a real browser', () => {
 
     const { url } = linkIn((await onlyMailTo(user.email)).textBody);
     expect(url.pathname).toBe('/reset-password');
-    await page.goto(`${app.baseUrl}${url.pathname}${url.search}`);
+    await page.goto(`${running.app.baseUrl}${url.pathname}${url.search}`);
     await page.getByRole('heading', { level: 1, name: 'Choose a new password' }).waitFor();
 
     // The contract's own rule, checked before anything is sent.
@@ -53,7 +42,7 @@ describe('resetting a forgotten password in a real browser', () => {
     await page.getByText('Your password is changed').waitFor();
     await page.getByRole('link', { name: 'Sign in' }).click();
 
-    await page.waitForURL(`${app.baseUrl}/sign-in`);
+    await page.waitForURL(`${running.app.baseUrl}/sign-in`);
     await page.getByLabel('E-mail address').fill(user.email);
     await page.getByLabel('Password', { exact: true }).fill(newPassword);
     await page.getByRole('button', { name: 'Sign in' }).click();
@@ -61,7 +50,7 @@ describe('resetting a forgotten password in a real browser', () => {
     await expect(page.getByTestId('signed-in-user').innerText()).resolves.toContain(user.name);
 
     // A used link is refused with the server's words and a way to ask for another.
-    await page.goto(`${app.baseUrl}${url.pathname}${url.search}`);
+    await page.goto(`${running.app.baseUrl}${url.pathname}${url.search}`);
     await page.getByLabel('New password', { exact: true }).fill(newPassword);
     await page.getByLabel('The new password again', { exact: true }).fill(newPassword);
     await page.getByRole('button', { name: 'Save the new password' }).click();

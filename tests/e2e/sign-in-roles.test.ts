@@ -1,18 +1,15 @@
-import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { DEMO_FIRM, DEMO_PASSWORD, demoUsers } from '../../db/seed/demo-accounts';
 import { DEMO_SUBJECT_ADDRESS } from '../../db/seed/seed-assignment';
 import { DEMO_REVIEW_SUBJECT_ADDRESS } from '../../db/seed/seed-review-assignment';
 import { roleLabels, type Role } from '../../server/contracts/auth';
 import {
-  launchBrowser,
+  appAndBrowser,
   saveScreenshot,
-  startApp,
   unexpectedFailures,
   watchPage,
   type PageWatch,
-  type RunningApp,
-  type RunningBrowser,
 } from './support/browser';
 
 /** The heading each role's home page opens with. */
@@ -59,33 +56,18 @@ function expectCleanPage(watch: PageWatch) {
 }
 
 describe('signing in to Compline in a real browser', () => {
-  let app: RunningApp;
-  let browser: RunningBrowser;
-
-  beforeAll(async () => {
-    app = await startApp();
-    browser = await launchBrowser();
-  });
-
-  afterAll(async () => {
-    await browser?.close();
-    await app?.stop();
-  });
-
-  beforeEach(async () => {
-    await browser.context.clearCookies();
-  });
+  const running = appAndBrowser({ freshCookies: true });
 
   for (const role of ['appraiser', 'reviewer', 'client', 'admin'] as const) {
     it(`signs the ${role} in to their own home, shows who is signed in, and signs out`, async () => {
       const user = account(role);
-      const page = await browser.context.newPage();
+      const page = await running.browser.context.newPage();
       const watch = watchPage(page);
 
-      await page.goto(`${app.baseUrl}/`);
-      await page.waitForURL(`${app.baseUrl}/sign-in`);
+      await page.goto(`${running.app.baseUrl}/`);
+      await page.waitForURL(`${running.app.baseUrl}/sign-in`);
       await signIn(page, user.email, DEMO_PASSWORD);
-      await page.waitForURL(`${app.baseUrl}/`);
+      await page.waitForURL(`${running.app.baseUrl}/`);
       await heading(page, homeHeading[role]).waitFor();
 
       const signedInAs = page.getByTestId('signed-in-user');
@@ -102,10 +84,10 @@ describe('signing in to Compline in a real browser', () => {
       await saveScreenshot(page, `${role}-home`);
 
       await page.getByRole('button', { name: 'Sign out' }).click();
-      await page.waitForURL(`${app.baseUrl}/sign-in`);
+      await page.waitForURL(`${running.app.baseUrl}/sign-in`);
       // The session is really over: the home page sends us back to sign in.
-      await page.goto(`${app.baseUrl}/`);
-      await page.waitForURL(`${app.baseUrl}/sign-in`);
+      await page.goto(`${running.app.baseUrl}/`);
+      await page.waitForURL(`${running.app.baseUrl}/sign-in`);
       await heading(page, 'Sign in').waitFor();
 
       expectCleanPage(watch);
@@ -115,9 +97,9 @@ describe('signing in to Compline in a real browser', () => {
 
   it('lets the office manager read the team, the outbox and the audit trail', async () => {
     const admin = account('admin');
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await signIn(page, admin.email, DEMO_PASSWORD);
     await heading(page, 'Team').waitFor();
 
@@ -150,9 +132,9 @@ describe('signing in to Compline in a real browser', () => {
   });
 
   it('gives the demo reviewer a file waiting in the queue, which opens at its review with the submission on its timeline', async () => {
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await signIn(page, account('reviewer').email, DEMO_PASSWORD);
     await heading(page, 'Review queue').waitFor();
 
@@ -185,9 +167,9 @@ describe('signing in to Compline in a real browser', () => {
   });
 
   it('shows the server’s message for a wrong password and stays on the sign-in page', async () => {
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await signIn(page, account('appraiser').email, 'not-the-password');
 
     const alert = page.getByRole('alert');
@@ -204,16 +186,16 @@ describe('signing in to Compline in a real browser', () => {
 
   it('sends a signed-out deep link to sign in, then back to the page asked for', async () => {
     const appraiser = account('appraiser');
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     const watch = watchPage(page);
 
-    await page.goto(`${app.baseUrl}/assignments/1`);
-    await page.waitForURL(`${app.baseUrl}/sign-in?next=%2Fassignments%2F1`);
+    await page.goto(`${running.app.baseUrl}/assignments/1`);
+    await page.waitForURL(`${running.app.baseUrl}/sign-in?next=%2Fassignments%2F1`);
     await heading(page, 'Sign in').waitFor();
     await saveScreenshot(page, 'sign-in');
 
     await signIn(page, appraiser.email, DEMO_PASSWORD);
-    await page.waitForURL(`${app.baseUrl}/assignments/1`);
+    await page.waitForURL(`${running.app.baseUrl}/assignments/1`);
     // The demo assignment opens at its first step.
     await heading(page, DEMO_SUBJECT_ADDRESS).waitFor();
     await page.getByRole('heading', { level: 2, name: 'Subject', exact: true }).waitFor();
@@ -224,7 +206,7 @@ describe('signing in to Compline in a real browser', () => {
     await saveScreenshot(page, 'assignment-workspace');
 
     await steps.filter({ hasText: 'Market analysis' }).click();
-    await page.waitForURL(`${app.baseUrl}/assignments/1/market-analysis`);
+    await page.waitForURL(`${running.app.baseUrl}/assignments/1/market-analysis`);
     await page.getByRole('heading', { level: 2, name: 'Market analysis', exact: true }).waitFor();
     await expect(page.getByRole('complementary', { name: 'Cautions' }).innerText()).resolves.toContain(
       'A flagged sale is a question, not a verdict',
@@ -232,7 +214,7 @@ describe('signing in to Compline in a real browser', () => {
     await settled(page);
     await saveScreenshot(page, 'assignment-market-analysis');
 
-    await page.goto(`${app.baseUrl}/no-such-page`);
+    await page.goto(`${running.app.baseUrl}/no-such-page`);
     await heading(page, 'There is no page at this address').waitFor();
 
     expectCleanPage(watch);
@@ -240,12 +222,12 @@ describe('signing in to Compline in a real browser', () => {
   });
 
   it('fits a tablet screen (768 px) without sideways scrolling', async () => {
-    const page = await browser.context.newPage();
+    const page = await running.browser.context.newPage();
     await page.setViewportSize({ width: 768, height: 1024 });
     const watch = watchPage(page);
     const overflow = () => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
 
-    await page.goto(`${app.baseUrl}/sign-in`);
+    await page.goto(`${running.app.baseUrl}/sign-in`);
     await heading(page, 'Sign in').waitFor();
     expect(await overflow()).toBeLessThanOrEqual(0);
     await saveScreenshot(page, 'tablet-sign-in');
@@ -256,10 +238,10 @@ describe('signing in to Compline in a real browser', () => {
     await saveScreenshot(page, 'tablet-admin-team');
 
     await page.getByRole('button', { name: 'Sign out' }).click();
-    await page.waitForURL(`${app.baseUrl}/sign-in`);
+    await page.waitForURL(`${running.app.baseUrl}/sign-in`);
     await signIn(page, account('reviewer').email, DEMO_PASSWORD);
     await heading(page, 'Review queue').waitFor();
-    await page.goto(`${app.baseUrl}/assignments/1/adjustments`);
+    await page.goto(`${running.app.baseUrl}/assignments/1/adjustments`);
     await page.getByRole('heading', { level: 2, name: 'Adjustments', exact: true }).waitFor();
     expect(await overflow()).toBeLessThanOrEqual(0);
     await settled(page);

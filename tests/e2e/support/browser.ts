@@ -1,3 +1,4 @@
+import { afterAll, beforeAll, beforeEach } from 'vitest';
 import { existsSync } from 'node:fs';
 import { cp, mkdir, mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
 import type { Server } from 'node:http';
@@ -81,6 +82,29 @@ export async function startApp(): Promise<RunningApp> {
       await rm(clientDir, { recursive: true, force: true });
     },
   };
+}
+
+/**
+ * For one describe block: Compline started before its tests and one Chromium beside it, both stopped
+ * after them. With freshCookies every test starts signed out. Read `.app` and `.browser` inside the
+ * tests (they exist once beforeAll has run).
+ */
+export function appAndBrowser(options: { viewport?: { width: number; height: number }; freshCookies?: boolean } = {}): { readonly app: RunningApp; readonly browser: RunningBrowser } {
+  const running = {} as { app: RunningApp; browser: RunningBrowser };
+  beforeAll(async () => {
+    running.app = await startApp();
+    running.browser = await launchBrowser(options.viewport);
+  });
+  afterAll(async () => {
+    await running.browser?.close();
+    await running.app?.stop();
+  });
+  if (options.freshCookies) {
+    beforeEach(async () => {
+      await running.browser.context.clearCookies();
+    });
+  }
+  return running;
 }
 
 export interface RunningBrowser {
