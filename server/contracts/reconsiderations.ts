@@ -34,3 +34,9 @@ export const reconsiderationSchema = z.object({
     .nullable(),
 });
 export type Reconsideration = z.infer<typeof reconsiderationSchema>;
+
+export const reconsiderationListResponse = z.object({ reconsiderations: z.array(reconsiderationSchema) });
+export type ReconsiderationListResponse = z.infer<typeof reconsiderationListResponse>;
+
+/** The answer of POST /api/reports/:id/reconsiderations. */
+export const reconsiderationFiledResponse = z.object({ id: z.number().int() });

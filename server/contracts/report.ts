@@ -59,3 +59,7 @@ export const verifyResponse = z.object({
   found: z.boolean(),
   report: z.object({ subjectAddress: z.string(), versionNumber: z.number().int(), signedAt: z.coerce.date(), signerName: z.string(), opinionOfValue: z.number().nullable(), currency: z.string(), effectiveDate: z.string() }).nullable(),
 });
+
+/** The answer of POST /api/assignments/:id/sign: the frozen version and its fingerprint. */
+export const signResponse = z.object({ reportVersionId: z.number().int(), versionNumber: z.number().int(), sha256: z.string() });
+export type SignResponse = z.infer<typeof signResponse>;

@@ -62,3 +62,11 @@ export const reviewQueueResponse = z.object({
     }),
   ),
 });
+
+/** The answer of POST /api/assignments/:id/transitions: the assignment's new status and version. */
+export const transitionResponse = z.object({ status: z.enum(assignmentStatuses), version: z.number().int() });
+export type TransitionResponse = z.infer<typeof transitionResponse>;
+
+/** The answer of a write that has nothing to report but that it happened. */
+export const okResponse = z.object({ ok: z.literal(true) });
+export type OkResponse = z.infer<typeof okResponse>;

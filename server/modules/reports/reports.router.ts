@@ -13,6 +13,8 @@ import * as service from './reports.service';
 import { renderReportPdf } from './pdf/report-pdf';
 import { photos } from '../../../db/schema/assignments';
 import { eq } from 'drizzle-orm';
+import type { SignResponse } from '../../contracts/report';
+import type { OkResponse } from '../../contracts/review';
 
 export const reportsRouter = Router();
 
@@ -20,14 +22,14 @@ const everyone = allow('appraiser', 'reviewer', 'admin', 'client');
 
 reportsRouter.post('/assignments/:id/sign', allow('appraiser'), async (req, res) => {
   const id = parseId(req.params);
-  res.status(201).json(await service.signAssignment(req.auth!.user, id, parse(signRequest, req.body), appOrigin(req)));
+  res.status(201).json((await service.signAssignment(req.auth!.user, id, parse(signRequest, req.body), appOrigin(req))) satisfies SignResponse);
 });
 
 reportsRouter.post('/assignments/:id/new-draft', allow('appraiser'), async (req, res) => {
   const id = parseId(req.params);
   const body = parse(z.object({ version: z.number().int().positive(), reason: z.string().trim().min(3, 'Say why a new draft is needed.').max(2000) }), req.body);
   await service.openNewDraft(req.auth!.user, id, body.version, body.reason);
-  res.json({ ok: true });
+  res.json({ ok: true } satisfies OkResponse);
 });
 
 reportsRouter.get('/reports', everyone, async (req, res) => {

@@ -9,12 +9,13 @@ import { listTimeline } from './review.repo';
 import * as queries from './queries.service';
 import { reviewQueue } from './review-queue.service';
 import { transition } from './workflow.service';
+import type { OkResponse, TransitionResponse } from '../../contracts/review';
 
 export const reviewRouter = Router();
 
 reviewRouter.post('/assignments/:id/transitions', allow('appraiser', 'reviewer'), async (req, res) => {
   const id = parseId(req.params);
-  res.json(await transition(req.auth!.user, id, parse(transitionRequest, req.body), appOrigin(req)));
+  res.json((await transition(req.auth!.user, id, parse(transitionRequest, req.body), appOrigin(req))) satisfies TransitionResponse);
 });
 
 reviewRouter.get('/assignments/:id/timeline', allow('appraiser', 'reviewer', 'admin'), async (req, res) => {
@@ -34,24 +35,24 @@ reviewRouter.post('/assignments/:id/queries', allow('reviewer'), async (req, res
 
 reviewRouter.post('/queries/:id/messages', allow('appraiser', 'reviewer'), async (req, res) => {
   await queries.addMessage(req.auth!.user, parseId(req.params), parse(queryMessageRequest, req.body).body);
-  res.status(201).json({ ok: true });
+  res.status(201).json({ ok: true } satisfies OkResponse);
 });
 
 reviewRouter.post('/queries/:id/answer', allow('appraiser'), async (req, res) => {
   await queries.answerQuery(req.auth!.user, parseId(req.params), parse(answerQueryRequest, req.body), appOrigin(req));
-  res.json({ ok: true });
+  res.json({ ok: true } satisfies OkResponse);
 });
 
 reviewRouter.post('/queries/:id/resolve', allow('reviewer'), async (req, res) => {
   const body = parse(queryStateRequest, req.body);
   await queries.resolveOrReopen(req.auth!.user, parseId(req.params), 'resolved', body.version, body.body);
-  res.json({ ok: true });
+  res.json({ ok: true } satisfies OkResponse);
 });
 
 reviewRouter.post('/queries/:id/reopen', allow('reviewer'), async (req, res) => {
   const body = parse(queryStateRequest, req.body);
   await queries.resolveOrReopen(req.auth!.user, parseId(req.params), 'open', body.version, body.body);
-  res.json({ ok: true });
+  res.json({ ok: true } satisfies OkResponse);
 });
 
 reviewRouter.get('/review-queue', allow('reviewer', 'admin'), async (req, res) => {

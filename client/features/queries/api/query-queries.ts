@@ -1,10 +1,9 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { queryListResponse, reviewQuerySchema } from '@contracts/review';
+import { okResponse, queryListResponse, reviewQuerySchema } from '@contracts/review';
 import { apiRequest } from '../../../lib/api-client';
 
 const raised = z.object({ query: reviewQuerySchema.pick({ id: true }).passthrough() });
-const done = z.object({ ok: z.literal(true) });
 
 /** Query keys and fetchers of the review queries (the threads on sales), general → specific. */
 export const queryThreads = {
@@ -22,9 +21,9 @@ export type AnswerAction = 'keep' | 'exclude';
 export const queryRequests = {
   raise: (assignmentId: number, body: { saleId: number | null; body: string }) =>
     apiRequest(`/api/assignments/${assignmentId}/queries`, raised, { method: 'POST', body }),
-  comment: (queryId: number, body: string) => apiRequest(`/api/queries/${queryId}/messages`, done, { method: 'POST', body: { body } }),
+  comment: (queryId: number, body: string) => apiRequest(`/api/queries/${queryId}/messages`, okResponse, { method: 'POST', body: { body } }),
   answer: (queryId: number, body: { action: AnswerAction; explanation: string; version: number }) =>
-    apiRequest(`/api/queries/${queryId}/answer`, done, { method: 'POST', body }),
-  resolve: (queryId: number, body: { version: number; body?: string }) => apiRequest(`/api/queries/${queryId}/resolve`, done, { method: 'POST', body }),
-  reopen: (queryId: number, body: { version: number; body?: string }) => apiRequest(`/api/queries/${queryId}/reopen`, done, { method: 'POST', body }),
+    apiRequest(`/api/queries/${queryId}/answer`, okResponse, { method: 'POST', body }),
+  resolve: (queryId: number, body: { version: number; body?: string }) => apiRequest(`/api/queries/${queryId}/resolve`, okResponse, { method: 'POST', body }),
+  reopen: (queryId: number, body: { version: number; body?: string }) => apiRequest(`/api/queries/${queryId}/reopen`, okResponse, { method: 'POST', body }),
 };

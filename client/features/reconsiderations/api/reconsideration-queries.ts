@@ -1,12 +1,10 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { reconsiderationRequest, reconsiderationResponseRequest, reconsiderationSchema } from '@contracts/reconsiderations';
+import { reconsiderationFiledResponse, reconsiderationListResponse, reconsiderationRequest, reconsiderationResponseRequest } from '@contracts/reconsiderations';
+import { okResponse } from '@contracts/review';
 import { apiRequest } from '../../../lib/api-client';
 
 /** GET answers of both lists: the server sends { reconsiderations: [...] }. */
-const listResponse = z.object({ reconsiderations: z.array(reconsiderationSchema) });
-const filed = z.object({ id: z.number().int() });
-const ok = z.object({ ok: z.literal(true) });
 
 /** Query keys and fetchers of the reconsiderations feature, general → specific. */
 export const reconsiderationQueries = {
@@ -15,14 +13,14 @@ export const reconsiderationQueries = {
   ofReport: (reportVersionId: number) =>
     queryOptions({
       queryKey: [...reconsiderationQueries.all(), 'report', reportVersionId] as const,
-      queryFn: ({ signal }) => apiRequest(`/api/reports/${reportVersionId}/reconsiderations`, listResponse, { signal }),
+      queryFn: ({ signal }) => apiRequest(`/api/reports/${reportVersionId}/reconsiderations`, reconsiderationListResponse, { signal }),
       select: (data) => data.reconsiderations,
     }),
   /** Every request on an assignment, with the effect of the extra sales on the fit (firm view). */
   ofAssignment: (assignmentId: number) =>
     queryOptions({
       queryKey: [...reconsiderationQueries.all(), 'assignment', assignmentId] as const,
-      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/reconsiderations`, listResponse, { signal }),
+      queryFn: ({ signal }) => apiRequest(`/api/assignments/${assignmentId}/reconsiderations`, reconsiderationListResponse, { signal }),
       select: (data) => data.reconsiderations,
     }),
 };
@@ -31,6 +29,6 @@ export type ReconsiderationInput = z.input<typeof reconsiderationRequest>;
 export type ReconsiderationAnswer = z.input<typeof reconsiderationResponseRequest>;
 
 export const reconsiderationRequests = {
-  file: (reportVersionId: number, body: ReconsiderationInput) => apiRequest(`/api/reports/${reportVersionId}/reconsiderations`, filed, { method: 'POST', body }),
-  respond: (id: number, body: ReconsiderationAnswer) => apiRequest(`/api/reconsiderations/${id}/respond`, ok, { method: 'POST', body }),
+  file: (reportVersionId: number, body: ReconsiderationInput) => apiRequest(`/api/reports/${reportVersionId}/reconsiderations`, reconsiderationFiledResponse, { method: 'POST', body }),
+  respond: (id: number, body: ReconsiderationAnswer) => apiRequest(`/api/reconsiderations/${id}/respond`, okResponse, { method: 'POST', body }),
 };

@@ -1,6 +1,7 @@
 import { queryOptions } from '@tanstack/react-query';
 import { z } from 'zod';
-import { reportListResponse, reportResponse, signRequest, verifyResponse } from '@contracts/report';
+import { reportListResponse, reportResponse, signRequest, signResponse, verifyResponse } from '@contracts/report';
+import { okResponse } from '@contracts/review';
 import { apiRequest } from '../../../lib/api-client';
 import { basemapLayer } from '../lib/map-projection';
 
@@ -43,15 +44,13 @@ export const reportQueries = {
     }),
 };
 
-const signed = z.object({ reportVersionId: z.number().int(), versionNumber: z.number().int(), sha256: z.string() });
-const ok = z.object({ ok: z.literal(true) });
 
 export type SignInput = z.input<typeof signRequest>;
 
 export const reportRequests = {
-  sign: (assignmentId: number, body: SignInput) => apiRequest(`/api/assignments/${assignmentId}/sign`, signed, { method: 'POST', body }),
+  sign: (assignmentId: number, body: SignInput) => apiRequest(`/api/assignments/${assignmentId}/sign`, signResponse, { method: 'POST', body }),
   newDraft: (assignmentId: number, body: { version: number; reason: string }) =>
-    apiRequest(`/api/assignments/${assignmentId}/new-draft`, ok, { method: 'POST', body }),
+    apiRequest(`/api/assignments/${assignmentId}/new-draft`, okResponse, { method: 'POST', body }),
 };
 
 export const reportPdfUrl = (id: number) => `/api/reports/${id}/pdf`;

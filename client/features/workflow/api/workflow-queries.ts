@@ -1,11 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
-import { z } from 'zod';
-import { assignmentStatuses } from '@contracts/assignments';
-import { timelineResponse, type WorkflowAction } from '@contracts/review';
+import { timelineResponse, transitionResponse, type WorkflowAction } from '@contracts/review';
 import { apiRequest } from '../../../lib/api-client';
-
-/** The answer of POST /api/assignments/:id/transitions (not in @contracts/review). */
-const transitionResponse = z.object({ status: z.enum(assignmentStatuses), version: z.number().int() });
 
 /** Query keys and fetchers of the workflow feature, general → specific. */
 export const workflowQueries = {
