@@ -8,7 +8,7 @@ import { db } from '../../db/client';
 import { bumpDataRevision } from '../../server/modules/assignments/assignments.repo';
 import { createFirmWithAssignment, createSale } from '../factories/assignments';
 import { createUser } from '../factories/accounts';
-import { sessionCookie, bareRequest, startTestApi, stopTestApi, uniqueClientIp, type TestApi } from '../setup/test-api';
+import { signInSessionId, startTestApi, stopTestApi, type TestApi } from '../setup/test-api';
 
 let api: TestApi;
 beforeAll(async () => {
@@ -38,13 +38,7 @@ function rawGet(path: string, headers: Record<string, string>): Promise<RawRespo
 }
 
 async function cookieOf(user: { email: string; password: string }): Promise<string> {
-  const res = await bareRequest(api)
-    .post('/api/auth/sign-in')
-    .set('Origin', api.origin)
-    .set('X-Forwarded-For', uniqueClientIp())
-    .send({ email: user.email, password: user.password });
-  expect(res.status, res.text).toBe(204);
-  return `compline_session=${sessionCookie(res)!.value}`;
+  return `compline_session=${await signInSessionId(api, user)}`;
 }
 
 async function assignmentWithSales() {

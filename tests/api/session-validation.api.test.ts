@@ -8,7 +8,7 @@ import { sessions } from '../../db/schema/auth';
 import { organisations, users } from '../../db/schema/organisations';
 import { env } from '../../server/env';
 import { createUser, uniqueSuffix, type TestUser } from '../factories/accounts';
-import { bareRequest, sessionCookie, startTestApi, stopTestApi, uniqueClientIp, type TestApi } from '../setup/test-api';
+import { bareRequest, sessionCookie, signInSessionId, startTestApi, stopTestApi, type TestApi } from '../setup/test-api';
 
 let api: TestApi;
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -20,15 +20,7 @@ afterAll(async () => {
   await stopTestApi(api);
 });
 
-async function signInAs(user: TestUser): Promise<string> {
-  const res = await bareRequest(api)
-    .post('/api/auth/sign-in')
-    .set('Origin', api.origin)
-    .set('X-Forwarded-For', uniqueClientIp())
-    .send({ email: user.email, password: user.password });
-  expect(res.status, res.text).toBe(204);
-  return sessionCookie(res)!.value;
-}
+const signInAs = (user: TestUser): Promise<string> => signInSessionId(api, user);
 
 const me = (sessionId: string) => bareRequest(api).get('/api/auth/me').set('Cookie', `compline_session=${sessionId}`);
 
