@@ -4,6 +4,7 @@ import { photoListResponse, photoSchema } from '@contracts/photos';
 import { saleSchema } from '@contracts/sales';
 import { apiRequest } from '../../../lib/api-client';
 import { uploadForm, type UploadOptions } from '../../../lib/upload';
+import { PHOTO_MAX_BYTES, photoTooLargeMessage, PHOTOS_PER_UPLOAD } from '@contracts/uploads';
 
 /** Query keys and fetchers of the photos feature, general → specific: ['photos'] clears them all. */
 export const photoQueries = {
@@ -21,8 +22,6 @@ export const photoQueries = {
 /** The server's limits (server/http/uploads.ts): checked here too, because a server that stops
  * reading a too-large upload half way can leave the browser with a dropped connection instead of
  * its explanation. */
-export const PHOTO_MAX_BYTES = 15 * 1024 * 1024;
-export const PHOTOS_PER_UPLOAD = 20;
 export const PHOTO_ACCEPT = 'image/jpeg,image/png,image/webp,.jpg,.jpeg,.png,.webp';
 
 /** Why this batch is not sent at all, or null when it may go. Whether a file really is an image
@@ -30,7 +29,7 @@ export const PHOTO_ACCEPT = 'image/jpeg,image/png,image/webp,.jpg,.jpeg,.png,.we
 export function refusePhotosLocally(files: readonly File[]): string | null {
   if (files.length > PHOTOS_PER_UPLOAD) return `That is ${files.length} files; add at most ${PHOTOS_PER_UPLOAD} at a time.`;
   const tooLarge = files.find((f) => f.size > PHOTO_MAX_BYTES);
-  if (tooLarge) return `${tooLarge.name} is larger than 15 MB. Export it at a smaller size and add it again.`;
+  if (tooLarge) return photoTooLargeMessage(tooLarge.name);
   return null;
 }
 

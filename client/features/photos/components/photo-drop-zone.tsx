@@ -6,7 +6,8 @@ import { ProgressBar } from '../../../components/ui/progress-bar';
 import { describeError } from '../../../lib/api-error';
 import { countOf } from '../../../lib/count-of';
 import { formatBytes } from '../../../lib/upload';
-import { PHOTO_ACCEPT, PHOTOS_PER_UPLOAD } from '../api/photo-queries';
+import { PHOTO_MAX_SIZE, PHOTOS_PER_UPLOAD } from '@contracts/uploads';
+import { PHOTO_ACCEPT } from '../api/photo-queries';
 import { useUploadPhotos } from '../hooks/use-photo-actions';
 
 interface PhotoDropZoneProps {
@@ -40,7 +41,7 @@ export function PhotoDropZone({ assignmentId, saleId, onUploaded }: PhotoDropZon
         compact
         disabled={busy}
         title="Drop photos here"
-        hint={`JPEG, PNG or WebP; up to ${PHOTOS_PER_UPLOAD} at a time, 15 MB each. Location data is removed.`}
+        hint={`JPEG, PNG or WebP; up to ${PHOTOS_PER_UPLOAD} at a time, ${PHOTO_MAX_SIZE} each. Location data is removed.`}
         buttonLabel="Choose photos"
         onFiles={send}
       />

@@ -1,9 +1,8 @@
 import { z } from 'zod';
 import { importCommitResponse, importPreviewResponse, importProblem, type ColumnMapping } from '@contracts/sales-import';
+import { CSV_MAX_BYTES, csvTooLargeMessage } from '@contracts/uploads';
 import { UploadError, uploadForm, type UploadOptions } from '../../../lib/upload';
 
-/** The server's limit for one CSV file (multer's fileSize in server/http/uploads.ts). */
-export const CSV_MAX_BYTES = 60 * 1024 * 1024;
 
 export type ImportResult = z.infer<typeof importCommitResponse>;
 
@@ -12,7 +11,7 @@ export function refuseCsvLocally(file: File): string | null {
   const looksLikeCsv = /\.csv$/i.test(file.name) || file.type === 'text/csv';
   if (!looksLikeCsv) return `${file.name} is not a CSV file. Export the sales as CSV (comma-separated values) and choose that file.`;
   if (file.size === 0) return `${file.name} is empty: it needs a header row and at least one sale.`;
-  if (file.size > CSV_MAX_BYTES) return `${file.name} is larger than 60 MB. Split the export into smaller files and import them one by one.`;
+  if (file.size > CSV_MAX_BYTES) return csvTooLargeMessage(file.name);
   return null;
 }
 

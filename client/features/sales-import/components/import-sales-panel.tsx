@@ -1,5 +1,6 @@
 import { useEffect, useRef } from 'react';
 import { MAX_IMPORT_ROWS } from '@contracts/sales-import';
+import { CSV_MAX_SIZE } from '@contracts/uploads';
 import { FileDropZone } from '../../../components/ui/file-drop-zone';
 import { Notice } from '../../../components/ui/notice';
 import { ProgressBar } from '../../../components/ui/progress-bar';
@@ -58,7 +59,7 @@ export function ImportSalesPanel({ assignmentId, onImported }: { assignmentId: n
           disabled={wizard.commitProgress !== null}
           compact={file !== null}
           title={file ? `${file.name} · ${formatBytes(file.size)}` : 'Drop a CSV export here'}
-          hint={file ? 'Fixed the file? Drop it here or choose it again.' : 'One file, up to 60 MB, with a header row.'}
+          hint={file ? 'Fixed the file? Drop it here or choose it again.' : `One file, up to ${CSV_MAX_SIZE}, with a header row.`}
           buttonLabel={file ? 'Choose another file' : 'Choose a CSV file'}
           onFiles={(files) => wizard.chooseFile(files[0])}
         />
