@@ -16,7 +16,7 @@ ensure_database "$BENCH_PGPORT" compline_bench
 export DATABASE_URL="postgres://postgres@127.0.0.1:$BENCH_PGPORT/compline_bench" DATA_DIR="$BENCH_ROOT/data" NODE_ENV=production
 npx tsx db/seed/run.ts
 npx vite build --logLevel warn
-for bench in ${BENCH_ONLY:-analysis photo-pipeline bundle import explain analysis-endpoint comp-map}; do
+for bench in ${BENCH_ONLY:-analysis photo-pipeline bundle import explain analysis-endpoint comp-map analysis-page}; do
   say "benchmark: $bench"
   node --import tsx --expose-gc "scripts/bench/$bench.bench.ts"
 done

@@ -11,6 +11,7 @@ const sections: Array<[string, string, string]> = [
   ['bundle', 'JavaScript of a first page load', '`npx vite build && npx tsx scripts/bench/bundle.bench.ts`'],
   ['photo-pipeline', 'A 12-megapixel JPEG through the photo pipeline', '`npx tsx scripts/bench/photo-pipeline.bench.ts`'],
   ['comp-map', 'The comp map with 20,000 sales in Chromium', '`BENCH_ONLY=comp-map npm run bench`'],
+  ['analysis-page', 'The market analysis page with a large neighbourhood in Chromium', '`BENCH_ONLY=analysis-page npm run bench`'],
 ];
 
 const file = path.resolve(import.meta.dirname, '../../docs/performance.md');

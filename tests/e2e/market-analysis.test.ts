@@ -14,7 +14,7 @@ import { apiSessionAs, createDemoAssignment } from '../factories/demo-assignment
 import { appAndBrowser, saveScreenshot, unexpectedFailures, watchPage } from './support/browser';
 
 const appraiser = demoUsers.find((u) => u.role === 'appraiser')!;
-const LOCALE = 'en-GB'; // the browser's locale (support/running.browser.ts), so that figures compare as text
+const LOCALE = 'en-GB'; // the browser's locale (support/browser.ts), so that figures compare as text
 
 async function signInAsAppraiser(page: Page, baseUrl: string) {
   await page.goto(`${baseUrl}/sign-in`);
@@ -219,6 +219,49 @@ describe('the market analysis step in a real browser', () => {
 
     expect(watch.errors).toEqual([]);
     expect(unexpectedFailures(watch, ['401 GET /api/auth/me', `409 PATCH /api/assignments/${copy.id}`])).toEqual([]);
+    await page.close();
+  });
+  it('draws a neighbourhood of 1,600 more sales as one layer, with its flagged sales on top as marks that open', async () => {
+    const copy = await createDemoAssignment(running.app.baseUrl, { subjectAddress: `14 Lantern Lane, dense copy ${Date.now()}`, completeGrid: false, submit: false });
+    // Invented sales on an invented Port Ellery street, spread around a line with some scatter.
+    const extra = Array.from({ length: 1_600 }, (_, i) => {
+      const floorArea = 1_000 + ((i * 7919) % 1_600);
+      return { assignmentId: copy.id, address: `${i + 1} Tidewater Row`, neighbourhood: 'Quarry Hill', floorArea, salePrice: 60_000 + 220 * floorArea + (((i * 104_729) % 60_001) - 30_000), saleDate: `2026-0${1 + (i % 9)}-1${i % 10}` };
+    });
+    for (let start = 0; start < extra.length; start += 800) await db.insert(sales).values(extra.slice(start, start + 800));
+
+    const page = await running.browser.context.newPage();
+    const watch = watchPage(page);
+    await signInAsAppraiser(page, running.app.baseUrl);
+    await page.goto(`${running.app.baseUrl}/assignments/${copy.id}/market-analysis`);
+    const chart = page.locator('[data-chart="price-area"]');
+    await chart.locator('[data-chart-layer="dense-sales"]').waitFor();
+    const analysis = analysisWireResponse.parse(await apiGet<unknown>(page, `/api/assignments/${copy.id}/analysis`));
+    const quarryHill = groupNamed(analysis, 'Quarry Hill');
+    expect(quarryHill.n).toBeGreaterThan(1_600);
+    const flaggedIds = new Set(quarryHill.flagged.map((f) => f.saleId));
+    expect(flaggedIds.size).toBeGreaterThan(0);
+
+    // Every sale is drawn once: the flagged ones as marks, the others inside the layer.
+    const markIds = await chart.locator('circle[data-sale-id]').evaluateAll((circles) => circles.map((c) => Number(c.getAttribute('data-sale-id'))));
+    const layered = Number(await chart.locator('[data-chart-layer="dense-sales"]').getAttribute('data-sale-count'));
+    expect(new Set(markIds)).toEqual(flaggedIds);
+    expect(markIds.length + layered).toBe(quarryHill.n);
+    await page.getByText(/sales: those not flagged are drawn as one layer/).first().waitFor();
+    await saveScreenshot(page, 'market-analysis-dense-1280');
+
+    // Zoomed to the main cluster, the layer shows the run of sales along the line.
+    await page.getByRole('button', { name: 'Main cluster' }).click();
+    await saveScreenshot(page, 'market-analysis-dense-zoomed-1280');
+    await page.getByRole('button', { name: 'All sales' }).click();
+
+    // A flagged mark still opens its sale (the one farthest from the subject's mark, the largest).
+    const flaggedId = quarryHill.points.filter((p) => flaggedIds.has(p.saleId)).sort((a, b) => b.x - a.x)[0].saleId;
+    await chart.locator(`circle[data-sale-id="${flaggedId}"]`).click({ force: true });
+    await page.waitForURL(`${running.app.baseUrl}/assignments/${copy.id}/comparables?sale=${flaggedId}`);
+
+    expect(watch.errors).toEqual([]);
+    expect(unexpectedFailures(watch, ['401 GET /api/auth/me'])).toEqual([]);
     await page.close();
   });
 });

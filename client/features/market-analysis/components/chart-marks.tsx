@@ -97,7 +97,7 @@ export function SubjectMark({ x0, estimate, lower, upper }: { x0: number; estima
   const [cx, cy, y1, y2] = [x, y, top, bottom] as number[];
   const d = 7;
   return (
-    <g clipPath={clip.clipPath} data-chart-layer="subject" aria-hidden>
+    <g clipPath={clip.clipPath} data-chart-layer="subject" aria-hidden pointerEvents="none">
       {clip.defs}
       <g stroke="var(--color-paper-raised)" strokeWidth={5} strokeLinecap="round" opacity={0.9}>
         <line x1={cx} x2={cx} y1={y1} y2={y2} />
@@ -141,6 +141,50 @@ export function OffScaleMarks({ points, label, onOpen }: { points: readonly Sale
           </g>
         );
       })}
+    </g>
+  );
+}
+
+/** Above this many sales in one chart, the sales that are not flagged are drawn as one layer. */
+export const DENSE_CHART_SALES = 1_500;
+
+/**
+ * Splits a chart's sales: below DENSE_CHART_SALES every sale is an interactive mark; above it only
+ * the flagged ones are, and the rest go to DenseSaleMarks.
+ */
+export function splitDense<P extends SalePoint>(points: readonly P[]): { marks: P[]; dense: P[] } {
+  if (points.length <= DENSE_CHART_SALES) return { marks: [...points], dense: [] };
+  return { marks: points.filter((p) => p.flagged), dense: points.filter((p) => !p.flagged) };
+}
+
+/**
+ * Many sales at once: one path per colour instead of one element per sale, so that tens of
+ * thousands draw in milliseconds rather than seconds. The marks are not interactive; the flagged
+ * sales drawn over them are, and the Comparables table opens any sale.
+ */
+export function DenseSaleMarks({ points, radius, fill }: { points: readonly SalePoint[]; radius: number; fill?: string }) {
+  const xScale = useXAxisScale();
+  const yScale = useYAxisScale();
+  const clip = useClip();
+  if (!xScale || !yScale || !clip || points.length === 0) return null;
+  const byColour = new Map<string, string[]>();
+  const r = radius.toFixed(1);
+  for (const p of points) {
+    const x = xScale(p.x);
+    const y = yScale(p.y);
+    if (x === undefined || y === undefined || !Number.isFinite(x) || !Number.isFinite(y)) continue;
+    const colour = fill ?? residualColour(p.studentized);
+    let parts = byColour.get(colour);
+    if (!parts) byColour.set(colour, (parts = []));
+    // A circle as two arcs from its left edge.
+    parts.push(`M${(x - radius).toFixed(1)},${y.toFixed(1)}a${r},${r} 0 1,0 ${(2 * radius).toFixed(1)},0a${r},${r} 0 1,0 ${(-2 * radius).toFixed(1)},0`);
+  }
+  return (
+    <g clipPath={clip.clipPath} data-chart-layer="dense-sales" data-sale-count={points.length} aria-hidden pointerEvents="none">
+      {clip.defs}
+      {[...byColour].map(([colour, parts]) => (
+        <path key={colour} d={parts.join('')} fill={colour} stroke="var(--color-paper-raised)" strokeWidth={0.75} />
+      ))}
     </g>
   );
 }

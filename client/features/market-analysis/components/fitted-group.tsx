@@ -6,6 +6,7 @@ import { focusRange, inRange } from '../lib/focus-range';
 import type { SaleLookup } from '../lib/sale-lookup';
 import { AnalysisCard } from './analysis-card';
 import { ChartLegend } from './chart-legend';
+import { DENSE_CHART_SALES } from './chart-marks';
 import { FitFigures } from './fit-figures';
 import { PriceAreaChart } from './price-area-chart';
 import { ResidualsChart } from './residuals-chart';
@@ -53,7 +54,11 @@ export function FittedGroup({ analysis, group, flags, format, lookup, onOpen }: 
         )}
         <div className="mt-3 flex flex-wrap items-end justify-between gap-x-6 gap-y-2 border-t border-rule pt-3">
           <ChartLegend showSubject={group.prediction !== null} showBand />
-          <p className="text-xs text-ink-faint">Hover a sale for its figures; click it to open the sale.</p>
+          <p className="text-xs text-ink-faint">
+            {group.points.length > DENSE_CHART_SALES
+              ? `${format.count(group.points.length)} sales: those not flagged are drawn as one layer. Hover or click a flagged sale; open any other from the Comparables table.`
+              : 'Hover a sale for its figures; click it to open the sale.'}
+          </p>
         </div>
       </AnalysisCard>
       <AnalysisCard

@@ -5,7 +5,7 @@ import { describeFlags, type Flag } from '../lib/flag-words';
 import type { FigureFormat } from '../lib/figure-format';
 import { predictionBand, predictionHalfWidth, fittedAt } from '../lib/prediction-band';
 import type { SaleLookup } from '../lib/sale-lookup';
-import { FitLayer, OffScaleMarks, SaleMark, SubjectMark, type SalePoint } from './chart-marks';
+import { DenseSaleMarks, FitLayer, OffScaleMarks, SaleMark, splitDense, SubjectMark, type SalePoint } from './chart-marks';
 import { inRange } from '../lib/focus-range';
 import { SaleTooltip } from './sale-tooltip';
 import { gridStroke, xAxisProps, yAxisProps } from './chart-style';
@@ -58,6 +58,7 @@ export function PriceAreaChart({ group, flagsById, format, lookup, timeAdjusted,
   const floor = shown.every((p) => p.y >= 0) ? 0 : -Infinity;
   const yValues = [...shown.map((p) => p.y), ...bandEnds, ...(prediction ? [prediction.lower, prediction.upper] : [])].map((v) => Math.max(floor, v));
   const y = niceDomain(yValues, 8, 0.03, floor);
+  const { marks, dense } = splitDense(shown);
 
   return (
     <ResponsiveContainer width="100%" height={height}>
@@ -68,8 +69,11 @@ export function PriceAreaChart({ group, flagsById, format, lookup, timeAdjusted,
         <ZIndexLayer zIndex={DefaultZIndexes.area}>
           <FitLayer band={band} />
         </ZIndexLayer>
+        <ZIndexLayer zIndex={DefaultZIndexes.scatter - 1}>
+          <DenseSaleMarks points={dense} radius={3} />
+        </ZIndexLayer>
         <Scatter
-          data={shown}
+          data={marks}
           isAnimationActive={false}
           shape={(props: object) => <SaleMark {...props} radius={5} onOpen={onOpen} />}
         />

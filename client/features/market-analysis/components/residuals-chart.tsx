@@ -1,4 +1,4 @@
-import { CartesianGrid, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis } from 'recharts';
+import { CartesianGrid, DefaultZIndexes, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZIndexLayer } from 'recharts';
 import type { FitSummary, GroupAnalysis } from '@contracts/analysis';
 import { niceDomain } from '../lib/axis-domain';
 import { inRange } from '../lib/focus-range';
@@ -6,7 +6,7 @@ import type { FigureFormat } from '../lib/figure-format';
 import type { Flag } from '../lib/flag-words';
 import { describeFlags } from '../lib/flag-words';
 import type { SaleLookup } from '../lib/sale-lookup';
-import { SaleMark, type SalePoint } from './chart-marks';
+import { DenseSaleMarks, SaleMark, splitDense, type SalePoint } from './chart-marks';
 import { axisLabel, gridStroke, xAxisProps, yAxisProps } from './chart-style';
 import { SaleTooltip } from './sale-tooltip';
 
@@ -42,6 +42,7 @@ export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus
   }));
   const x = niceDomain(points.map((p) => p.x), 5);
   const y = niceDomain([...points.map((p) => p.y), 2 * s, -2 * s, 0], 5);
+  const { marks, dense } = splitDense(points);
 
   return (
     <ResponsiveContainer width="100%" height={height}>
@@ -52,7 +53,10 @@ export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus
         {s > 0 && <ReferenceLine y={2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '+2s', position: 'insideTopRight', ...axisLabel, fontSize: 11 }} />}
         {s > 0 && <ReferenceLine y={-2 * s} stroke="var(--color-ink-faint)" strokeDasharray="4 4" label={{ value: '−2s', position: 'insideBottomRight', ...axisLabel, fontSize: 11 }} />}
         <ReferenceLine y={0} stroke="var(--color-ink)" strokeWidth={1.5} />
-        <Scatter data={points} isAnimationActive={false} shape={(props: object) => <SaleMark {...props} radius={4} onOpen={onOpen} />} />
+        <ZIndexLayer zIndex={DefaultZIndexes.scatter - 1}>
+          <DenseSaleMarks points={dense} radius={2.5} />
+        </ZIndexLayer>
+        <Scatter data={marks} isAnimationActive={false} shape={(props: object) => <SaleMark {...props} radius={4} onOpen={onOpen} />} />
         <Tooltip
           cursor={false}
           isAnimationActive={false}

@@ -4,7 +4,7 @@ import { niceDomain } from '../lib/axis-domain';
 import type { FigureFormat } from '../lib/figure-format';
 import { predictionBand } from '../lib/prediction-band';
 import type { SaleLookup } from '../lib/sale-lookup';
-import { FitLayer, SaleMark, type SalePoint } from './chart-marks';
+import { DenseSaleMarks, FitLayer, SaleMark, splitDense, type SalePoint } from './chart-marks';
 import { gridStroke, xAxisProps, yAxisProps } from './chart-style';
 import { SaleTooltip } from './sale-tooltip';
 
@@ -30,6 +30,7 @@ export function TrendChart({ trend, flaggedIds, format, lookup, onOpen, height }
   const x = niceDomain([0, ...points.map((p) => p.x)], 6, 0);
   const line = predictionBand(trend.fit, trend.fit.xMin, trend.fit.xMax, 2);
   const y = niceDomain([...points.map((p) => p.y), ...line.map((p) => p.fitted)], 5);
+  const { marks, dense } = splitDense(points);
 
   return (
     <ResponsiveContainer width="100%" height={height}>
@@ -47,8 +48,11 @@ export function TrendChart({ trend, flaggedIds, format, lookup, onOpen, height }
         <ZIndexLayer zIndex={DefaultZIndexes.area}>
           <FitLayer band={line} showBand={false} />
         </ZIndexLayer>
+        <ZIndexLayer zIndex={DefaultZIndexes.scatter - 1}>
+          <DenseSaleMarks points={dense} radius={2.5} fill="var(--color-ink-soft)" />
+        </ZIndexLayer>
         <Scatter
-          data={points}
+          data={marks}
           isAnimationActive={false}
           shape={(props: object) => <SaleMark {...props} radius={3.5} fill="var(--color-ink-soft)" onOpen={onOpen} />}
         />
