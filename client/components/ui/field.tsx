@@ -1,4 +1,4 @@
-import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes } from 'react';
+import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectHTMLAttributes, type TextareaHTMLAttributes } from 'react';
 
 const control =
   'block w-full rounded-md border bg-paper-raised px-3 text-[0.9375rem] text-ink shadow-[inset_0_1px_0_rgb(29_42_68/0.04)] ' +
@@ -81,6 +81,30 @@ export function SelectField({ label, hint, error, className = '', children, ...s
       >
         {children}
       </select>
+    </FieldFrame>
+  );
+}
+
+interface TextAreaFieldProps extends Omit<TextareaHTMLAttributes<HTMLTextAreaElement>, 'id'> {
+  label: string;
+  hint?: ReactNode;
+  error?: string;
+  ref?: Ref<HTMLTextAreaElement>;
+}
+
+/** A labelled multi-line field, for reasons, comments, assumptions and the grid's longer texts. */
+export function TextAreaField({ label, hint, error, className = '', rows = 3, ...textarea }: TextAreaFieldProps) {
+  const id = useId();
+  return (
+    <FieldFrame id={id} label={label} hint={hint} error={error}>
+      <textarea
+        id={id}
+        rows={rows}
+        aria-invalid={error ? true : undefined}
+        aria-describedby={describedBy(id, hint, error)}
+        className={`${control} py-2 leading-relaxed ${error ? 'border-rust' : 'border-rule-strong'} ${className}`}
+        {...textarea}
+      />
     </FieldFrame>
   );
 }

@@ -2,11 +2,10 @@ import { useState } from 'react';
 import type { GridResponse } from '@contracts/grid';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/field';
+import { TextAreaField, TextField } from '../../../components/ui/field';
 import type { useGridSave } from '../hooks/use-grid-save';
 import type { Figures } from '../lib/grid-figures';
 import { SaveProblemNotice } from './save-problem';
-import { TextAreaField } from './text-area';
 
 const RATE_INCREMENTS = [0.5, 1, 5, 10, 25, 50, 100];
 

@@ -3,7 +3,7 @@ import type { GridResponse } from '@contracts/grid';
 import { Button } from '../../../components/ui/button';
 import type { useGridSave } from '../hooks/use-grid-save';
 import { SaveProblemNotice } from './save-problem';
-import { TextAreaField } from './text-area';
+import { TextAreaField } from '../../../components/ui/field';
 
 interface ReconciliationCommentProps {
   grid: GridResponse;

@@ -4,9 +4,8 @@ import { Link } from 'react-router-dom';
 import type { Role } from '@contracts/auth';
 import type { Order } from '@contracts/orders';
 import { Button, buttonClasses } from '../../../components/ui/button';
-import { SelectField } from '../../../components/ui/field';
+import { SelectField, TextAreaField } from '../../../components/ui/field';
 import { Notice } from '../../../components/ui/notice';
-import { TextAreaField } from '../../../components/ui/text-area-field';
 import { describeError, isApiError } from '../../../lib/api-error';
 import { orderQueries, orderRequests } from '../api/order-queries';
 

@@ -3,7 +3,7 @@ import { useFieldArray, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { TextAreaField } from '../../../components/ui/text-area-field';
+import { TextAreaField } from '../../../components/ui/field';
 import { describeError } from '../../../lib/api-error';
 import { reconsiderationQueries, reconsiderationRequests } from '../api/reconsideration-queries';
 import { blankSale, MAX_EXTRA_SALES, reconsiderationFormSchema, type ReconsiderationFormOutput, type ReconsiderationFormValues } from '../lib/reconsideration-form';

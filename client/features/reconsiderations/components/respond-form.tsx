@@ -3,7 +3,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { Reconsideration } from '@contracts/reconsiderations';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { TextAreaField } from '../../../components/ui/text-area-field';
+import { TextAreaField } from '../../../components/ui/field';
 import { describeError, isApiError } from '../../../lib/api-error';
 import { reconsiderationQueries, reconsiderationRequests } from '../api/reconsideration-queries';
 

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useMutation } from '@tanstack/react-query';
 import { Button } from '../../../components/ui/button';
 import { Notice } from '../../../components/ui/notice';
-import { TextAreaField } from '../../../components/ui/text-area-field';
+import { TextAreaField } from '../../../components/ui/field';
 import { describeError, isApiError } from '../../../lib/api-error';
 import { reportRequests } from '../api/report-queries';
 
