@@ -79,12 +79,20 @@ describe('the server process is signalled', () => {
     const { appraiser, assignment } = await createFirmWithAssignment();
     const server = await startChildServer();
     const cookie = await signInCookie(server.origin, appraiser);
-    const inFlight = importRequest(server.origin, cookie, assignment.id, 3000);
+    // Large enough to be still running when the signal arrives (3,000 rows could finish first on a
+    // quiet machine, and the drill would then test nothing).
+    const rows = 20_000;
+    let answered = false;
+    const inFlight = importRequest(server.origin, cookie, assignment.id, rows).then((r) => ((answered = true), r));
     await new Promise((r) => setTimeout(r, 300));
+    expect(answered).toBe(false);
     server.process.kill('SIGTERM');
     const res = await inFlight;
     expect(res.status).toBe(201);
-    expect(res.body.imported).toBe(3000);
+    expect(res.body.imported).toBe(rows);
+    // The signal was handled (the log line travels by pipe, so give it a moment to arrive).
+    for (let waited = 0; !server.output().includes('SIGTERM received') && waited < 5_000; waited += 50) await new Promise((r) => setTimeout(r, 50));
+    expect(server.output()).toContain('SIGTERM received');
     // A new request is refused: the connection is refused, or (on a kept-alive socket) 503.
     const after = await supertest(server.origin).get('/api/health').timeout(2000).then((r) => r.status, () => 'refused');
     expect(['refused', 503]).toContain(after);
