@@ -11,7 +11,9 @@
 // the sale objects into columns, the answer in words and columns, its JSON text, and the rows of
 // the older contract (built now only for a report snapshot and the server's own callers).
 import { expandAnalysis } from '../../server/contracts/analysis';
-import { analyseColumns, fitColumnsOut, fitRange, readSales } from '../../server/analysis/market-columns';
+import { fitColumnsOut, fitRange } from '../../server/analysis/lean-fit';
+import { analyseColumns } from '../../server/analysis/market-columns';
+import { readSales } from '../../server/analysis/sale-columns';
 import { analysisWire, transportWire } from '../../server/analysis/market-analysis';
 import { benchmarkSales } from './analysis-data';
 import { median, recordFigures } from './report';

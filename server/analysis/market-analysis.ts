@@ -6,7 +6,9 @@ import { expandAnalysis, type Analysis, type AnalysisWire, type FlaggedSale, typ
 import { saleTypeLabels, type SaleType } from '../contracts/sales';
 import { median } from 'simple-statistics';
 import { describeFlags } from './flag-reasons';
-import { analyseColumns, NO_NEIGHBOURHOOD, readSales, type FitColumnsOut, type MarketColumns } from './market-columns';
+import type { FitColumnsOut } from './lean-fit';
+import { analyseColumns, type MarketColumns } from './market-columns';
+import { NO_NEIGHBOURHOOD, readSales } from './sale-columns';
 import type { FitPoint } from './regression';
 import { pointAt } from './point-diagnostics';
 

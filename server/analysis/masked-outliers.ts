@@ -7,10 +7,9 @@
 // The refits run on the scratch columns of fit-columns.ts: only the one revealed point of a round
 // becomes an object.
 import { fitColumns, fitScratch } from './fit-columns';
-import { HAS_EXTERNAL, pointAt } from './point-diagnostics';
+import { HAS_EXTERNAL, OUTLIER_T, pointAt } from './point-diagnostics';
 import type { FitPoint } from './regression';
 
-export const OUTLIER_T = 3;
 const MAX_ROUNDS = 6;
 
 export interface RevealedOutlier {

@@ -16,8 +16,8 @@ import type { FitPoint, PointFlag } from './regression';
  * points at random. Such a fit is reported as exact (residuals 0, s = 0).
  */
 export const EXACT_FIT_TOLERANCE = 1e-12;
-const UNUSUAL_T = 2;
-const OUTLIER_T = 3;
+export const UNUSUAL_T = 2;
+export const OUTLIER_T = 3;
 const PARAMETERS = 2;
 
 export interface DiagnosticsInput {

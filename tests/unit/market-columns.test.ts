@@ -4,7 +4,9 @@
 // where it does not, the columns must carry exactly what fitLine gives (same doubles).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { fitColumnsOut, fitRange, readSales, analyseColumns, type FitColumnsOut, type GroupFit } from '../../server/analysis/market-columns';
+import { fitColumnsOut, fitRange, type FitColumnsOut, type GroupFit } from '../../server/analysis/lean-fit';
+import { analyseColumns } from '../../server/analysis/market-columns';
+import { readSales } from '../../server/analysis/sale-columns';
 import { revealMaskedOutliers } from '../../server/analysis/masked-outliers';
 import { fitLine, type FitPoint, type LineFitOk } from '../../server/analysis/regression';
 import { flagsOf, HAS_EXTERNAL, HAS_INTERNAL } from '../../server/analysis/point-diagnostics';
