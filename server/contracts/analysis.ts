@@ -3,6 +3,21 @@ import { z } from 'zod';
 const num = z.number();
 const nullableNum = z.number().nullable();
 export const pointFlags = ['unusual', 'outlier', 'influential', 'high-leverage'] as const;
+export type PointFlagName = (typeof pointFlags)[number];
+
+/** The flags in Compline's own short words, lower case for running text ("unusual, outlier"). */
+export const pointFlagWords: Record<PointFlagName, string> = {
+  unusual: 'unusual',
+  outlier: 'outlier',
+  influential: 'influential',
+  'high-leverage': 'high leverage',
+};
+
+/** The word for a flag read from a stored report, which may name one this version does not know. */
+export const pointFlagWord = (flag: string): string => (flag in pointFlagWords ? pointFlagWords[flag as PointFlagName] : flag);
+
+/** The same words as a chip or badge label ("High leverage"). */
+export const pointFlagLabel = (flag: PointFlagName): string => pointFlagWords[flag].charAt(0).toUpperCase() + pointFlagWords[flag].slice(1);
 
 export const analysedPointSchema = z.object({
   saleId: z.number().int(),

@@ -1,6 +1,18 @@
 import { z } from 'zod';
 
 export const lineItemFeatures = ['bathrooms', 'garage', 'view', 'condition', 'lot', 'quality', 'other'] as const;
+export type LineItemFeature = (typeof lineItemFeatures)[number];
+
+/** A line item's feature as the grid, the report page and the PDF name it. */
+export const lineItemFeatureLabels: Record<LineItemFeature, string> = {
+  bathrooms: 'Bathrooms',
+  garage: 'Garage',
+  view: 'View',
+  condition: 'Condition',
+  lot: 'Lot',
+  quality: 'Quality',
+  other: 'Other',
+};
 export const lineItemSchema = z.object({
   feature: z.enum(lineItemFeatures),
   amount: z.number().min(-1e9).max(1e9),

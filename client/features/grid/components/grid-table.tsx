@@ -3,7 +3,8 @@ import type { GridResponse } from '@contracts/grid';
 import type { Sale } from '@contracts/sales';
 import { formatIsoDate } from '../../../lib/format-date';
 import type { Figures } from '../lib/grid-figures';
-import { featureLabels, GUIDELINE_NOTE, monthsBetween, type LineItemFeature } from '../lib/grid-labels';
+import { lineItemFeatureLabels, type LineItemFeature } from '@contracts/grid';
+import { GUIDELINE_NOTE, monthsBetween } from '../lib/grid-labels';
 
 type Row = GridResponse['rows'][number];
 
@@ -111,7 +112,7 @@ export function GridTable({ grid, figures, sales, effectiveDate, flaggedSaleIds,
           {features.map((feature) => (
             <GridRow
               key={feature}
-              label={featureLabels[feature]}
+              label={lineItemFeatureLabels[feature]}
               hint="typed by the appraiser"
               cells={rows.map((r) => {
                 const items = itemsOf(r, feature);

@@ -3,7 +3,7 @@ import { lineItemFeatures, type GridResponse } from '@contracts/grid';
 import { Button } from '../../../components/ui/button';
 import type { useGridSave } from '../hooks/use-grid-save';
 import type { Figures } from '../lib/grid-figures';
-import { featureLabels, type LineItemFeature } from '../lib/grid-labels';
+import { lineItemFeatureLabels, type LineItemFeature } from '@contracts/grid';
 import { SaveProblemNotice } from './save-problem';
 
 interface DraftItem {
@@ -83,7 +83,7 @@ export function LineItemsEditor({ grid, saleId, figures, saver, onClose }: LineI
               <select aria-label={`Feature of line item ${index + 1}`} className={control} value={item.feature} onChange={(e) => change(item.key, { feature: e.target.value as LineItemFeature })}>
                 {lineItemFeatures.map((feature) => (
                   <option key={feature} value={feature}>
-                    {featureLabels[feature]}
+                    {lineItemFeatureLabels[feature]}
                   </option>
                 ))}
               </select>

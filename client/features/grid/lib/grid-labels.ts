@@ -1,16 +1,4 @@
-import type { lineItemFeatures } from '@contracts/grid';
-
-export type LineItemFeature = (typeof lineItemFeatures)[number];
-
-export const featureLabels: Record<LineItemFeature, string> = {
-  bathrooms: 'Bathrooms',
-  garage: 'Garage',
-  view: 'View',
-  condition: 'Condition',
-  lot: 'Lot',
-  quality: 'Quality',
-  other: 'Other',
-};
+export type { LineItemFeature } from '@contracts/grid';
 
 /** Names of the soft checks, as the reviewer would say them. */
 export const checkLabels: Record<string, string> = {

@@ -1,8 +1,8 @@
 import { Link } from 'react-router-dom';
-import type { FlaggedSale, GroupAnalysis } from '@contracts/analysis';
+import { pointFlagWords, type FlaggedSale, type GroupAnalysis } from '@contracts/analysis';
 import { saleTypeLabels, saleTypes, type SaleType } from '@contracts/sales';
 import type { FigureFormat } from '../lib/figure-format';
-import { flagMeanings, flagWords } from '../lib/flag-words';
+import { flagMeanings } from '../lib/flag-words';
 import { saleHref, type SaleLookup } from '../lib/sale-lookup';
 
 interface Props {
@@ -74,7 +74,7 @@ function FlaggedSaleItem({ sale, assignmentId, format, lookup }: { sale: Flagged
                 title={flagMeanings[flag]}
                 className="rounded-sm border border-flag-ring/35 bg-paper px-1.5 py-px text-xs font-semibold text-ink-soft"
               >
-                {flagWords[flag]}
+                {pointFlagWords[flag]}
               </li>
             ))}
           </ul>

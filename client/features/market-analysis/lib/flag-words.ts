@@ -1,14 +1,6 @@
-import type { FlaggedSale, GroupAnalysis } from '@contracts/analysis';
+import { pointFlagWords, type FlaggedSale, type GroupAnalysis } from '@contracts/analysis';
 
 export type Flag = FlaggedSale['flags'][number];
-
-/** The flags in Compline's own short words, as badges and in tooltips. */
-export const flagWords: Record<Flag, string> = {
-  unusual: 'unusual',
-  outlier: 'outlier',
-  influential: 'influential',
-  'high-leverage': 'high leverage',
-};
 
 /** What each flag means, for the badge's title. */
 export const flagMeanings: Record<Flag, string> = {
@@ -25,5 +17,5 @@ export function flagsBySale(group: GroupAnalysis): ReadonlyMap<number, readonly 
 }
 
 export function describeFlags(flags: readonly Flag[]): string {
-  return flags.map((f) => flagWords[f]).join(', ');
+  return flags.map((f) => pointFlagWords[f]).join(', ');
 }

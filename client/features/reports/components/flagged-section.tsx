@@ -1,7 +1,7 @@
 import type { ReportSnapshot } from '@contracts/report';
 import { handledSales, type HandledSale, type Outcome } from '@contracts/report-facts';
 import { formatMoment, type ReportFormat } from '../lib/report-format';
-import { flagWords } from '../lib/feature-words';
+import { pointFlagWord } from '@contracts/analysis';
 
 const outcomeStyle: Record<Outcome, { label: string; tone: string; fallback: string }> = {
   kept: { label: 'Kept, with explanation', tone: 'border-teal/40 bg-teal-wash text-teal', fallback: 'Kept in the analysis; no explanation was written.' },
@@ -21,7 +21,7 @@ function FlagChips({ flags }: { flags: readonly string[] }) {
     <span className="flex flex-wrap gap-1">
       {flags.map((f) => (
         <span key={f} className="rounded-full border border-flag-ring/60 px-2 py-px text-[0.6875rem] font-semibold text-flag-ring">
-          {flagWords[f] ?? f}
+          {pointFlagWord(f)}
         </span>
       ))}
     </span>
@@ -90,7 +90,7 @@ export function FlaggedSection({ snapshot, format }: { snapshot: ReportSnapshot;
               <li key={sale.saleId} className="flex flex-wrap items-baseline gap-x-2 border-b border-dotted border-rule py-1">
                 <span className="font-medium text-ink">{sale.address}</span>
                 <span className="text-[0.75rem] text-ink-faint">{sale.neighbourhood}</span>
-                <span className="ml-auto text-[0.75rem] text-flag-ring">{sale.flags.map((f) => flagWords[f] ?? f).join(', ')}</span>
+                <span className="ml-auto text-[0.75rem] text-flag-ring">{sale.flags.map((f) => pointFlagWord(f)).join(', ')}</span>
                 <span className="w-full text-[0.75rem] text-ink-soft">{outcomeStyle[sale.outcome].label}</span>
               </li>
             ))}

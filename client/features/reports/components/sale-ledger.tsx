@@ -1,6 +1,6 @@
 import type { ReportSnapshot } from '@contracts/report';
 import type { ReportFormat } from '../lib/report-format';
-import { featureWords } from '../lib/feature-words';
+import { lineItemFeatureLabels } from '@contracts/grid';
 
 type Row = ReportSnapshot['grid']['rows'][number];
 type Entry = ReportSnapshot['grid']['entries'][number];
@@ -34,7 +34,7 @@ export function SaleLedger({ row, entry, floorArea, subjectArea, rate, format }:
         <Line label="Market conditions (time)" amount={row.timeAdjustment} format={format} />
         <Line label="Floor area" note={areaNote} amount={row.areaAdjustment} format={format} />
         {(entry?.lineItems ?? []).map((item, i) => (
-          <Line key={i} label={featureWords[item.feature] ?? item.feature} note={item.note || null} amount={item.amount} format={format} />
+          <Line key={i} label={lineItemFeatureLabels[item.feature] ?? item.feature} note={item.note || null} amount={item.amount} format={format} />
         ))}
         <Line label="Adjusted price" amount={row.adjustedPrice} format={format} strong />
       </dl>

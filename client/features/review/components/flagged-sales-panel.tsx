@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import type { Analysis, FlaggedSale } from '@contracts/analysis';
-import { flagLabels, residualWords } from '../lib/review-figures';
+import { pointFlagLabel } from '@contracts/analysis';
+import { residualWords } from '../lib/review-figures';
 
 interface FlaggedSalesPanelProps {
   analysis: Analysis;
@@ -23,7 +24,7 @@ function FlaggedRow({ sale, action }: { sale: FlaggedSale; action: ReactNode }) 
           <p className="mt-1 flex flex-wrap gap-1.5" aria-label="Flags">
             {sale.flags.map((flag) => (
               <span key={flag} className="rounded-full border border-flag-ring/40 px-2 py-px text-xs font-semibold text-flag-ring">
-                {flagLabels[flag] ?? flag}
+                {pointFlagLabel(flag)}
               </span>
             ))}
           </p>

@@ -3,13 +3,6 @@ import type { GroupAnalysis } from '@contracts/analysis';
 const DASH = '—';
 const ok = (v: number | null | undefined): v is number => typeof v === 'number' && Number.isFinite(v);
 
-export const flagLabels: Record<string, string> = {
-  unusual: 'Unusual',
-  outlier: 'Outlier',
-  influential: 'Influential',
-  'high-leverage': 'High leverage',
-};
-
 /** R² to three decimals; to four when that is what tells two values apart. */
 export function formatRSquared(value: number | null | undefined, other?: number | null): string {
   if (!ok(value)) return DASH;

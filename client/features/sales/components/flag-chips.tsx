@@ -1,11 +1,5 @@
+import { pointFlagLabel } from '@contracts/analysis';
 import type { PointFlag } from '../lib/comp-rows';
-
-const flagWords: Record<PointFlag, string> = {
-  unusual: 'Unusual',
-  outlier: 'Outlier',
-  influential: 'Influential',
-  'high-leverage': 'High leverage',
-};
 
 /** The analysis's flags on a sale, each a small chip with the magenta ring the map uses. */
 export function FlagChips({ flags, reason }: { flags: readonly PointFlag[]; reason: string | null }) {
@@ -15,7 +9,7 @@ export function FlagChips({ flags, reason }: { flags: readonly PointFlag[]; reas
       {flags.map((flag) => (
         <li key={flag} className="inline-flex items-center gap-1 rounded-full border border-flag-ring/35 bg-paper-raised px-1.5 text-[0.6875rem] leading-[1.125rem] font-semibold text-ink-soft">
           <span aria-hidden className="size-[7px] rounded-full ring-[1.5px] ring-flag-ring" />
-          {flagWords[flag]}
+          {pointFlagLabel(flag)}
         </li>
       ))}
     </ul>

@@ -1,23 +1,13 @@
 // The adjustment grid and the reconciliation: the floor-area rate and where it comes from, each grid
 // sale's adjustments down to its adjusted price, net and gross shares and weight, then the indicated
 // value, its rounding, the adjusted range, the appraiser's comment and what a reviewer would ask.
-import { lineItemFeatures } from '../../../contracts/grid';
+import { lineItemFeatureLabels } from '../../../contracts/grid';
 import { FONT, printable } from './fonts';
 import { money, perArea, percent, signedMoney, signedPercent } from './format';
 import { ensureSpace, facts, list, paragraph, place, sectionTitle, subheading, textHeight, type ReportContext } from './layout';
 import { flaggedSaleIds } from '../../../contracts/report-facts';
 import { table, type Column, type TableRow } from './table';
 import { ACCENT, CONTENT_WIDTH, INK, PAGE, STATE } from './theme';
-
-const featureNames: Record<(typeof lineItemFeatures)[number], string> = {
-  bathrooms: 'Bathrooms',
-  garage: 'Garage',
-  view: 'View',
-  condition: 'Condition',
-  lot: 'Lot',
-  quality: 'Quality',
-  other: 'Other',
-};
 
 function rateFacts(ctx: ReportContext): void {
   const { doc, snapshot, units } = ctx;
@@ -65,7 +55,7 @@ function gridTable(ctx: ReportContext): void {
   ];
   const rows: TableRow[] = grid.rows.map((r) => {
     const items = entries.get(r.saleId)?.lineItems ?? [];
-    const itemText = items.map((li) => `${featureNames[li.feature]} ${signedMoney(li.amount, c)}${li.note ? ` (${li.note})` : ''}`).join('; ');
+    const itemText = items.map((li) => `${lineItemFeatureLabels[li.feature]} ${signedMoney(li.amount, c)}${li.note ? ` (${li.note})` : ''}`).join('; ');
     const limits: string[] = [];
     if (r.netOverLimit) limits.push(`net above ${grid.limits.netLimitPct}%`);
     if (r.grossOverLimit) limits.push(`gross above ${grid.limits.grossLimitPct}%`);
