@@ -3,6 +3,7 @@ import { computeGrid, roundToIncrement } from '../../server/analysis/adjustment-
 import { monthsBefore } from '../../server/analysis/time-trend';
 import { reportSnapshotSchema, type ReportSnapshot } from '../../server/contracts/report';
 import type { GridResponse } from '../../server/contracts/grid';
+import { gridFigures } from '../../server/modules/grid/grid-figures';
 import type { SaleType } from '../../server/contracts/sales';
 import { CAUTIONS, CERTIFICATION_STATEMENTS, LIMITING_CONDITIONS } from '../../server/contracts/report-text';
 import { canonicalJson, sha256Hex } from '../../server/modules/reports/canonical-json';
@@ -128,7 +129,6 @@ function gridFor(sales: readonly Sale[], analysis: ReportSnapshot['analysis'], s
             weightPct: null,
           })),
         });
-  const prediction = group?.prediction ?? null;
   const missing = [...(rate === null ? ['A floor-area rate: the subject’s neighbourhood has no usable fit, so type one.'] : []), ...(comment ? [] : ['A reconciliation comment.'])];
   return {
     settings: { typedRate: null, rateJustification: null, rateIncrement: 1, valueIncrement: 1_000, reconciliationComment: comment, version: 3 },
@@ -145,13 +145,7 @@ function gridFor(sales: readonly Sale[], analysis: ReportSnapshot['analysis'], s
     monthlyRate,
     subjectArea,
     entries: gridSales.map((s) => ({ saleId: s.id, lineItems: LINE_ITEMS[s.address] ?? [], weightPct: null, version: 1 })),
-    rows: grid?.rows ?? [],
-    weightsTotalPct: grid?.weightsTotalPct ?? 0,
-    indicatedValue: grid?.indicatedValue ?? null,
-    opinionOfValue: grid?.opinionOfValue ?? null,
-    adjustedRange: grid?.adjustedRange ?? null,
-    regression: prediction && group ? { estimate: prediction.estimate, lower: prediction.lower, upper: prediction.upper, neighbourhood: group.neighbourhood } : null,
-    checks: grid?.checks ?? [],
+    ...gridFigures(grid, group),
     missing,
   };
 }

@@ -9,6 +9,7 @@ import { findSubject } from '../assignments/assignments.repo';
 import { cachedAnalysis } from '../analysis/analysis.service';
 import { listSales } from '../sales/sales.repo';
 import { loadFirmSettings, loadGridEntries, loadGridSettings } from './grid.repo';
+import { gridFigures } from './grid-figures';
 
 type AssignmentRow = Awaited<ReturnType<typeof loadAssignmentFor>>;
 
@@ -69,7 +70,6 @@ export async function buildGrid(assignment: AssignmentRow): Promise<GridResponse
   if (grid && grid.indicatedValue === null && gridSales.length > 0) missing.push('Weights that total 100%.');
   if (!settings.reconciliationComment) missing.push('A reconciliation comment.');
 
-  const prediction = group?.prediction ?? null;
   return {
     settings: {
       typedRate,
@@ -92,13 +92,7 @@ export async function buildGrid(assignment: AssignmentRow): Promise<GridResponse
     monthlyRate,
     subjectArea,
     entries: entries.map((e) => ({ saleId: e.saleId, lineItems: e.lineItems, weightPct: e.weightPct, version: e.version })),
-    rows: grid?.rows ?? [],
-    weightsTotalPct: grid?.weightsTotalPct ?? 0,
-    indicatedValue: grid?.indicatedValue ?? null,
-    opinionOfValue: grid?.opinionOfValue ?? null,
-    adjustedRange: grid?.adjustedRange ?? null,
-    regression: prediction && group ? { estimate: prediction.estimate, lower: prediction.lower, upper: prediction.upper, neighbourhood: group.neighbourhood } : null,
-    checks: grid?.checks ?? [],
+    ...gridFigures(grid, group),
     missing,
   };
 }
