@@ -1,5 +1,9 @@
 import { useId, type ReactNode } from 'react';
 import { usePlotArea, useXAxisScale, useYAxisScale } from 'recharts';
+import type { FitSummary, GroupAnalysis } from '@contracts/analysis';
+import type { FigureFormat } from '../lib/figure-format';
+import type { Flag } from '../lib/flag-words';
+import type { SaleLookup } from '../lib/sale-lookup';
 import type { BandPoint } from '../lib/prediction-band';
 import { residualColour } from '../lib/residual-scale';
 
@@ -10,6 +14,24 @@ export interface SalePoint {
   y: number;
   studentized: number | null;
   flagged: boolean;
+}
+
+/** A sale of a fitted group, with its residual and its flags (the scatter and the residual plot). */
+export interface FittedSalePoint extends SalePoint {
+  residual: number;
+  flags: readonly Flag[];
+}
+
+/** What the two charts of a fitted group take. */
+export interface GroupChartProps {
+  group: GroupAnalysis & { fit: FitSummary };
+  flagsById: ReadonlyMap<number, readonly Flag[]>;
+  format: FigureFormat;
+  lookup: SaleLookup;
+  onOpen: (saleId: number) => void;
+  /** A floor-area range to zoom to (null shows every sale). */
+  focus: [number, number] | null;
+  height: number;
 }
 
 interface SaleMarkProps {

@@ -1,31 +1,18 @@
 import { CartesianGrid, DefaultZIndexes, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZIndexLayer } from 'recharts';
-import type { FitSummary, GroupAnalysis } from '@contracts/analysis';
 import { niceDomain } from '../lib/axis-domain';
-import { describeFlags, type Flag } from '../lib/flag-words';
-import type { FigureFormat } from '../lib/figure-format';
+import { describeFlags } from '../lib/flag-words';
 import { predictionBand, predictionHalfWidth, fittedAt } from '../lib/prediction-band';
-import type { SaleLookup } from '../lib/sale-lookup';
-import { DenseSaleMarks, FitLayer, OffScaleMarks, SaleMark, splitDense, SubjectMark, type SalePoint } from './chart-marks';
+import { DenseSaleMarks, FitLayer, OffScaleMarks, SaleMark, splitDense, SubjectMark, type FittedSalePoint, type GroupChartProps } from './chart-marks';
 import { inRange } from '../lib/focus-range';
 import { SaleTooltip } from './sale-tooltip';
 import { gridStroke, xAxisProps, yAxisProps } from './chart-style';
 
-interface PricePoint extends SalePoint {
+interface PricePoint extends FittedSalePoint {
   fitted: number;
-  residual: number;
-  flags: readonly Flag[];
 }
 
-interface Props {
-  group: GroupAnalysis & { fit: FitSummary };
-  flagsById: ReadonlyMap<number, readonly Flag[]>;
-  format: FigureFormat;
-  lookup: SaleLookup;
+interface Props extends GroupChartProps {
   timeAdjusted: boolean;
-  onOpen: (saleId: number) => void;
-  /** A floor-area range to zoom to; sales beyond it are marked on the edge. Null shows every sale. */
-  focus: [number, number] | null;
-  height: number;
 }
 
 /** Price against floor area: the sales coloured by residual, flagged ones ringed, the fitted line,

@@ -1,34 +1,16 @@
 import { CartesianGrid, DefaultZIndexes, ReferenceLine, ResponsiveContainer, Scatter, ScatterChart, Tooltip, XAxis, YAxis, ZIndexLayer } from 'recharts';
-import type { FitSummary, GroupAnalysis } from '@contracts/analysis';
 import { niceDomain } from '../lib/axis-domain';
 import { inRange } from '../lib/focus-range';
-import type { FigureFormat } from '../lib/figure-format';
-import type { Flag } from '../lib/flag-words';
 import { describeFlags } from '../lib/flag-words';
-import type { SaleLookup } from '../lib/sale-lookup';
-import { DenseSaleMarks, SaleMark, splitDense, type SalePoint } from './chart-marks';
+import { DenseSaleMarks, SaleMark, splitDense, type FittedSalePoint, type GroupChartProps } from './chart-marks';
 import { axisLabel, gridStroke, xAxisProps, yAxisProps } from './chart-style';
 import { SaleTooltip } from './sale-tooltip';
 
-interface ResidualPoint extends SalePoint {
-  residual: number;
-  flags: readonly Flag[];
-}
-
-interface Props {
-  group: GroupAnalysis & { fit: FitSummary };
-  flagsById: ReadonlyMap<number, readonly Flag[]>;
-  format: FigureFormat;
-  lookup: SaleLookup;
-  onOpen: (saleId: number) => void;
-  /** Show only the sales whose floor area lies in this range (the scatter's zoom). */
-  focus: [number, number] | null;
-  height: number;
-}
+type ResidualPoint = FittedSalePoint;
 
 /** Residuals against fitted values, with the zero line and guides at two residual standard
  * errors either side: a pattern here (a funnel, a curve) is a question for the appraiser. */
-export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus, height }: Props) {
+export function ResidualsChart({ group, flagsById, format, lookup, onOpen, focus, height }: GroupChartProps) {
   const s = group.fit.residualStdError;
   // x is the fitted price, y the residual: the same sale, seen from the line.
   const points: ResidualPoint[] = group.points.filter((p) => inRange(focus, p.x)).map((p) => ({
