@@ -2,22 +2,15 @@ import type { Map as MaplibreMap } from 'maplibre-gl';
 import type { LonLat, MapSale } from '../map-types';
 import { withinTown } from '../lib/basemap-style';
 import { outerRingBounds } from '../lib/rings';
+import { boundsOf } from '../../../lib/geo-bounds';
 
 const buttonClass =
   'flex h-8 min-w-8 items-center justify-center px-2 text-[0.8125rem] font-semibold text-ink hover:bg-paper focus-visible:relative focus-visible:z-10 disabled:text-ink-faint disabled:hover:bg-transparent';
 
 function salesBounds(sales: readonly MapSale[], subject: LonLat | null): [number, number, number, number] | null {
-  const points = sales.map((s) => [s.lon, s.lat] as const);
+  const points = sales.map((s) => [s.lon, s.lat]);
   if (subject) points.push([subject.lon, subject.lat]);
-  if (points.length === 0) return null;
-  let [west, south, east, north] = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const [lon, lat] of points) {
-    west = Math.min(west, lon);
-    east = Math.max(east, lon);
-    south = Math.min(south, lat);
-    north = Math.max(north, lat);
-  }
-  return [west, south, east, north];
+  return boundsOf(points);
 }
 
 /** Our own zoom and framing buttons, drawn in the page's style over the map's top-right corner. */

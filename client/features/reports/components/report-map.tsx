@@ -2,7 +2,8 @@ import { useQuery } from '@tanstack/react-query';
 import type { ReportSnapshot } from '@contracts/report';
 import { reportQueries } from '../api/report-queries';
 import { gridSales, handledSales } from '@contracts/report-facts';
-import { boundsOf, fitProjection, labelPoint, pathOf, scaleBar, type BasemapFeature } from '../lib/map-projection';
+import { boundsOf } from '../../../lib/geo-bounds';
+import { fitProjection, labelPoint, pathOf, scaleBar, type BasemapFeature } from '../lib/map-projection';
 import { residualColour } from '../lib/residual-colour';
 import { MapLegend } from './map-legend';
 

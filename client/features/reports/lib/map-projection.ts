@@ -30,19 +30,6 @@ export interface Projection {
   metresPerUnit: number;
 }
 
-/** Bounds [west, south, east, north] of every position given. */
-export function boundsOf(positions: readonly Position[]): [number, number, number, number] | null {
-  if (positions.length === 0) return null;
-  let [w, s, e, n] = [Infinity, Infinity, -Infinity, -Infinity];
-  for (const [lon, lat] of positions) {
-    w = Math.min(w, lon);
-    e = Math.max(e, lon);
-    s = Math.min(s, lat);
-    n = Math.max(n, lat);
-  }
-  return [w, s, e, n];
-}
-
 /**
  * A plain equirectangular projection centred on the bounds: at the scale of one town, longitude
  * shrunk by cos(latitude) is true to within a fraction of a percent. The bounds are padded and
